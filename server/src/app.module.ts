@@ -1,0 +1,54 @@
+import { type DynamicModule, type MiddlewareConsumer, Module, type NestModule } from '@nestjs/common';
+import { APP_FILTER, APP_GUARD } from '@nestjs/core';
+import { ServeStaticModule } from '@nestjs/serve-static';
+import { AuditModule } from './audit/audit.module.js';
+import { AuthModule } from './auth/auth.module.js';
+import { JwtAuthGuard, RolesGuard } from './common/access.guards.js';
+import { ApiExceptionFilter } from './common/api-exception.filter.js';
+import { JsonBodyMiddleware } from './common/json-body.middleware.js';
+import type { AppConfig } from './config/config.js';
+import { ConfigModule } from './config/config.module.js';
+import { DatabaseModule } from './database/database.module.js';
+import { DemoModule } from './demo/demo.module.js';
+import { HealthModule } from './health/health.module.js';
+import { RegionsModule } from './regions/regions.module.js';
+import { UsersModule } from './users/users.module.js';
+
+@Module({})
+export class AppModule implements NestModule {
+  static register(config: AppConfig): DynamicModule {
+    const staticClient = config.clientDist
+      ? [
+          ServeStaticModule.forRoot({
+            rootPath: config.clientDist,
+            // Unknown API paths must answer the API's JSON 404, not the client's index.html.
+            exclude: ['/api/{*splat}'],
+          }),
+        ]
+      : [];
+    return {
+      module: AppModule,
+      imports: [
+        ConfigModule.with(config),
+        DatabaseModule,
+        AuditModule,
+        AuthModule,
+        UsersModule,
+        RegionsModule,
+        HealthModule,
+        DemoModule,
+        ...staticClient,
+      ],
+      providers: [
+        // Order matters: authenticate first, then check the role. Together they deny by default.
+        { provide: APP_GUARD, useClass: JwtAuthGuard },
+        { provide: APP_GUARD, useClass: RolesGuard },
+        { provide: APP_FILTER, useClass: ApiExceptionFilter },
+      ],
+    };
+  }
+
+  configure(consumer: MiddlewareConsumer): void {
+    consumer.apply(JsonBodyMiddleware).forRoutes('*');
+  }
+}
