@@ -1,7 +1,15 @@
 import { randomUUID } from 'node:crypto';
-import { type ArgumentsHost, Catch, type ExceptionFilter, HttpException, Logger } from '@nestjs/common';
+import {
+  type ArgumentsHost,
+  Catch,
+  type ExceptionFilter,
+  HttpException,
+  Inject,
+  Logger,
+} from '@nestjs/common';
 import type { ApiErrorBody, ErrorDetail } from '@stormhour/shared';
 import type { Request, Response } from 'express';
+import { APP_CONFIG, type AppConfig } from '../config/config.js';
 
 /**
  * Turns every error into `{ statusCode, message, details }`. Known HTTP errors keep their message;
@@ -10,6 +18,8 @@ import type { Request, Response } from 'express';
 @Catch()
 export class ApiExceptionFilter implements ExceptionFilter {
   private readonly logger = new Logger('Errors');
+
+  constructor(@Inject(APP_CONFIG) private readonly config: AppConfig) {}
 
   catch(exception: unknown, host: ArgumentsHost): void {
     const http = host.switchToHttp();
@@ -25,7 +35,11 @@ export class ApiExceptionFilter implements ExceptionFilter {
       const status = exception.getStatus();
       const response = exception.getResponse();
       const { message, details } = readResponse(response, exception.message);
-      return { statusCode: status, message: friendlier(status, message), ...(details ? { details } : {}) };
+      return {
+        statusCode: status,
+        message: this.friendlier(status, message),
+        ...(details ? { details } : {}),
+      };
     }
     const requestId = randomUUID();
     this.logger.error(
@@ -36,6 +50,19 @@ export class ApiExceptionFilter implements ExceptionFilter {
       message: 'Something went wrong on the server. Quote this id when reporting it.',
       requestId,
     };
+  }
+
+  /** Framework defaults like "Forbidden resource" become sentences a user can act on. */
+  private friendlier(status: number, message: string): string {
+    if (status === 403 && message === 'Forbidden resource') return 'Your role does not give access to this.';
+    if (status === 401 && message === 'Unauthorized')
+      return 'Sign in to continue: the session is missing, expired or invalid.';
+    if (status === 404 && message.startsWith('Cannot ')) return `No such API route: ${message.slice(7)}`;
+    if (status === 413 && message === 'File too large') {
+      const mb = Number((this.config.uploadLimitBytes / 1048576).toPrecision(3));
+      return `The file is larger than the upload limit of ${mb} MB (UPLOAD_LIMIT_MB).`;
+    }
+    return message;
   }
 }
 
@@ -51,13 +78,4 @@ function readResponse(
       ? r.message
       : fallback;
   return { message, details: r.details };
-}
-
-/** Framework defaults like "Forbidden resource" become sentences a user can act on. */
-function friendlier(status: number, message: string): string {
-  if (status === 403 && message === 'Forbidden resource') return 'Your role does not give access to this.';
-  if (status === 401 && message === 'Unauthorized')
-    return 'Sign in to continue: the session is missing, expired or invalid.';
-  if (status === 404 && message.startsWith('Cannot ')) return `No such API route: ${message.slice(7)}`;
-  return message;
 }

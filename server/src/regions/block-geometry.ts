@@ -44,25 +44,28 @@ export function boundingBox(g: GeoPolygonal): BBox {
  * treating degrees as planar moves the centroid by far less than a block's size.
  */
 export function centroid(g: GeoPolygonal): [number, number] {
+  // Work relative to one vertex: cross products of raw coordinates near 88° lose digits.
+  const [ox, oy] = polygons(g)[0][0][0];
   let a = 0;
   let cx = 0;
   let cy = 0;
   for (const poly of polygons(g))
     poly.forEach((ring, ringIndex) => {
-      const sign = ringIndex === 0 ? 1 : -1;
       let ra = 0;
       let rx = 0;
       let ry = 0;
       for (let i = 0; i < ring.length - 1; i++) {
-        const [x0, y0] = ring[i];
-        const [x1, y1] = ring[i + 1];
+        const x0 = ring[i][0] - ox;
+        const y0 = ring[i][1] - oy;
+        const x1 = ring[i + 1][0] - ox;
+        const y1 = ring[i + 1][1] - oy;
         const cross = x0 * y1 - x1 * y0;
         ra += cross;
         rx += (x0 + x1) * cross;
         ry += (y0 + y1) * cross;
       }
-      // Orientation varies between files; weight each ring by its absolute area with its role's sign.
-      const s = sign * Math.sign(ra);
+      // Orientation varies between files: count outer rings positive and holes negative either way.
+      const s = (ringIndex === 0 ? 1 : -1) * Math.sign(ra);
       a += s * ra;
       cx += s * rx;
       cy += s * ry;
@@ -71,5 +74,5 @@ export function centroid(g: GeoPolygonal): [number, number] {
     const [minLon, minLat, maxLon, maxLat] = boundingBox(g);
     return [(minLon + maxLon) / 2, (minLat + maxLat) / 2];
   }
-  return [cx / (3 * a), cy / (3 * a)];
+  return [ox + cx / (3 * a), oy + cy / (3 * a)];
 }

@@ -1,0 +1,85 @@
+import { ROLES, type Role } from '@stormhour/shared';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from '../testing/test-app.js';
+
+/**
+ * Who may call what. Every route the application registers must be listed here: a new route without an
+ * entry fails this test, so access is always decided on purpose.
+ */
+const EXPECTED: Record<string, 'public' | readonly Role[]> = {
+  'GET /api/health': 'public',
+  'POST /api/auth/login': 'public',
+  'POST /api/auth/refresh': 'public',
+  'POST /api/auth/logout': ROLES,
+  'GET /api/auth/me': ROLES,
+  'POST /api/auth/password': ROLES,
+  'GET /api/users': ['admin'],
+  'POST /api/users': ['admin'],
+  'PATCH /api/users/:id': ['admin'],
+  'GET /api/districts': ROLES,
+  'POST /api/districts': ['admin'],
+  'PATCH /api/districts/:id': ['admin'],
+  'GET /api/blocks': ROLES,
+  'GET /api/blocks/geojson': ROLES,
+  'PATCH /api/blocks/:id': ['admin'],
+  'POST /api/blocks/import': ['admin'],
+  'GET /api/audit': ['admin'],
+  'GET /api/audit/actions': ['admin'],
+};
+
+interface ExpressLayer {
+  route?: { path: string; methods: Record<string, boolean> };
+}
+
+/** The routes Express actually serves, read from the running application. */
+function registeredRoutes(t: TestApp): string[] {
+  const express = t.app.getHttpAdapter().getInstance() as { router: { stack: ExpressLayer[] } };
+  const routes = new Set<string>();
+  for (const layer of express.router.stack) {
+    // Middleware bound to every method (body parsing) is not an endpoint.
+    if (!layer.route || Object.keys(layer.route.methods).length > 20) continue;
+    for (const [method, on] of Object.entries(layer.route.methods)) {
+      if (on && method !== '_all') routes.add(`${method.toUpperCase()} ${layer.route.path}`);
+    }
+  }
+  // The API documentation pages are served by the docs module and are public on purpose.
+  return [...routes].filter((r) => !r.includes('/api/docs'));
+}
+
+describe('authorization matrix', () => {
+  let t: TestApp;
+  const tokens = {} as Record<Role, string>;
+  beforeAll(async () => {
+    t = await createTestApp();
+    for (const role of ROLES) tokens[role] = await t.signedIn(role);
+  });
+  afterAll(() => t.close());
+
+  it('lists every registered route, and no route that does not exist', () => {
+    const routes = registeredRoutes(t).sort();
+    expect(routes.filter((r) => !(r in EXPECTED))).toEqual([]);
+    expect(Object.keys(EXPECTED).filter((r) => !routes.includes(r))).toEqual([]);
+  });
+
+  it.each(Object.entries(EXPECTED))('%s answers each role as expected', async (route, allowed) => {
+    const [method, path] = route.split(' ');
+    const url = path.replace(/:id/g, '999999');
+    const call = (token?: string) => {
+      const req = t.http[method.toLowerCase() as 'get' | 'post' | 'patch'](url);
+      if (token) req.set('Authorization', `Bearer ${token}`);
+      return req.send({});
+    };
+    const anonymous = await call();
+    if (allowed === 'public') {
+      expect(anonymous.status).not.toBe(403);
+      return;
+    }
+    expect(anonymous.status).toBe(401);
+    for (const role of ROLES) {
+      const res = await call(tokens[role]);
+      if (allowed.includes(role))
+        expect([401, 403], `${role} should pass ${route}`).not.toContain(res.status);
+      else expect(res.status, `${role} should be refused ${route}`).toBe(403);
+    }
+  });
+});
