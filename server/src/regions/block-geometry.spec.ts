@@ -1,4 +1,4 @@
-import type { GeoPolygonal } from '@stormhour/shared';
+import type { GeoPolygonal, Position } from '@stormhour/shared';
 import { describe, expect, it } from 'vitest';
 import { boundingBox, centroid, geodesicAreaKm2 } from './block-geometry.js';
 
@@ -11,7 +11,7 @@ const e = Math.sqrt(e2);
 /** Surface area of an ellipsoid of revolution, closed form: 2πa²[1 + (1 − e²)/e · atanh(e)]. */
 const ellipsoidAreaKm2 = (2 * Math.PI * a * a * (1 + ((1 - e2) / e) * Math.atanh(e))) / 1e6;
 
-const square = (lon0: number, lat0: number, d: number): GeoPolygonal => ({
+const square = (lon0: number, lat0: number, d: number): { type: 'Polygon'; coordinates: Position[][] } => ({
   type: 'Polygon',
   coordinates: [
     [

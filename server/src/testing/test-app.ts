@@ -52,7 +52,7 @@ export const TEST_PASSWORD = 'correct horse battery';
 let passwordHash: Promise<string> | undefined;
 
 export async function createTestApp(overrides: Partial<AppConfig> = {}): Promise<TestApp> {
-  const db = wrap(await (await migratedTemplate()).clone());
+  const db = wrap((await (await migratedTemplate()).clone()) as PGlite);
   const moduleRef = await Test.createTestingModule({ imports: [AppModule.register(testConfig(overrides))] })
     .overrideProvider(DATABASE)
     .useValue(db)

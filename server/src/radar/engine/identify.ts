@@ -1,6 +1,6 @@
 import { equivalentEllipse } from './ellipse.js';
 import { layerThicknessesM, type PlacedGrid } from './grid.js';
-import { type Connectivity, labelGrid } from './label.js';
+import { labelGrid } from './label.js';
 import { dbzToZ, rainRate, vilColumn, type ZR } from './reflectivity.js';
 
 export interface IdentifySettings {
