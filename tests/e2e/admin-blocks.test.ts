@@ -15,19 +15,20 @@ describe('admin manages blocks', () => {
   it('is told exactly what is wrong with a broken blocks file, and nothing is imported', async () => {
     const { page } = browser;
     await page.goto(`${baseUrl()}/admin/blocks`);
-    await page.locator('input[type="file"]').setInputFiles(fixture('blocks-broken.geojson'));
+    await page.getByLabel('Import blocks').setInputFiles(fixture('blocks-broken.geojson'));
     await page.getByText('6 feature(s) have problems; nothing was imported.').waitFor();
-    await page.getByText('features[1] (TFA-02)').waitFor();
-    await page.getByText(/boundary crosses itself/).first().waitFor();
-    await page.getByText(/not closed/).first().waitFor();
+    const problems = page.getByRole('table', { name: 'Problems in the file' });
+    await problems.getByText('features[1] (TFA-02)').waitFor();
+    await problems.getByText(/boundary crosses itself/).first().waitFor();
+    await problems.getByText(/not closed/).first().waitFor();
     const table = page.getByRole('table', { name: 'Blocks' });
     expect(await table.getByText('TFA-01').count()).toBe(0);
   });
 
   it('imports a valid file and sees the blocks in the table and on the map', async () => {
     const { page } = browser;
-    await page.locator('input[type="file"]').setInputFiles(fixture('blocks-valid.geojson'));
-    await page.getByText(/4 blocks created/).waitFor();
+    await page.getByLabel('Import blocks').setInputFiles(fixture('blocks-valid.geojson'));
+    await page.getByText(/Imported: 4 blocks created, 0 updated, 2 districts created/).waitFor();
     const table = page.getByRole('table', { name: 'Blocks' });
     await table.getByText('TFA-01').waitFor();
     await table.getByText('Twin Spurs').waitFor();
@@ -40,7 +41,7 @@ describe('admin manages blocks', () => {
   it('filters the blocks table by text', async () => {
     const { page } = browser;
     const table = page.getByRole('table', { name: 'Blocks' });
-    await page.getByRole('searchbox').first().fill('Reedmarsh');
+    await page.getByRole('searchbox', { name: 'Search blocks' }).fill('Reedmarsh');
     await table.getByText('TFA-02').waitFor();
     await expect.poll(() => table.getByText('TFA-01').count()).toBe(0);
   });

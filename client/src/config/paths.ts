@@ -1,0 +1,53 @@
+import type { Section } from '@stormhour/shared';
+
+/** Every route path of the app, so links, guards and tests agree. */
+export const paths = {
+  signIn: '/sign-in',
+  home: '/',
+  changePassword: '/account/password',
+  section: {
+    atlas: '/atlas',
+    intake: '/intake',
+    regimes: '/regimes',
+    outlook: '/outlook',
+    bulletins: '/bulletins',
+    inbox: '/inbox',
+    scorecard: '/scorecard',
+    admin: '/admin',
+  } satisfies Record<Section, string>,
+  admin: {
+    blocks: '/admin/blocks',
+    people: '/admin/people',
+    audit: '/admin/audit',
+  },
+} as const;
+
+/** Names shown in the navigation; the browser tests find links by these. */
+export const SECTION_NAMES: Record<Section, string> = {
+  atlas: 'Atlas',
+  intake: 'Intake',
+  regimes: 'Regimes',
+  outlook: 'Outlook',
+  bulletins: 'Bulletins',
+  inbox: 'Inbox',
+  scorecard: 'Scorecard',
+  admin: 'Admin',
+};
+
+/** API endpoints, relative to the site root. */
+export const api = {
+  login: '/api/auth/login',
+  refresh: '/api/auth/refresh',
+  logout: '/api/auth/logout',
+  me: '/api/auth/me',
+  password: '/api/auth/password',
+  districts: '/api/districts',
+  district: (id: number) => `/api/districts/${id}`,
+  blocks: '/api/blocks',
+  blocksGeojson: '/api/blocks/geojson',
+  block: (id: number) => `/api/blocks/${id}`,
+  blocksImport: '/api/blocks/import',
+  users: '/api/users',
+  user: (id: number) => `/api/users/${id}`,
+  audit: '/api/audit',
+} as const;

@@ -1,0 +1,89 @@
+import { InlineNotification, Modal, Select, SelectItem, Stack, TextInput } from '@carbon/react';
+import { type BlockView, type DistrictView, UpdateBlockRequest } from '@stormhour/shared';
+import { useState } from 'react';
+import { ApiError, messageOf } from '../../../../lib/apiError';
+import { fieldErrorsFromZod } from '../../../../lib/fieldErrors';
+import { useUpdateBlock } from '../api';
+
+interface EditBlockModalProps {
+  block: BlockView;
+  districts: DistrictView[];
+  onClose: () => void;
+}
+
+export function EditBlockModal({ block, districts, onClose }: EditBlockModalProps) {
+  const [name, setName] = useState(block.name);
+  const [districtId, setDistrictId] = useState(block.districtId);
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const mutation = useUpdateBlock();
+
+  async function submit() {
+    // Send only what changed, so a concurrent edit of the other field is not overwritten.
+    const changes = {
+      ...(name !== block.name ? { name } : {}),
+      ...(districtId !== block.districtId ? { districtId } : {}),
+    };
+    const parsed = UpdateBlockRequest.safeParse(changes);
+    if (!parsed.success) {
+      setErrors(fieldErrorsFromZod(parsed.error));
+      return;
+    }
+    if (Object.keys(parsed.data).length === 0) {
+      onClose();
+      return;
+    }
+    setErrors({});
+    try {
+      await mutation.mutateAsync({ id: block.id, body: parsed.data });
+      onClose();
+    } catch (error) {
+      if (error instanceof ApiError) setErrors(error.fieldErrors);
+    }
+  }
+
+  return (
+    <Modal
+      open
+      modalHeading={`Edit block ${block.code}`}
+      primaryButtonText="Save"
+      secondaryButtonText="Cancel"
+      primaryButtonDisabled={mutation.isPending}
+      shouldSubmitOnEnter
+      onRequestSubmit={submit}
+      onRequestClose={onClose}
+    >
+      <Stack gap={5}>
+        {mutation.isError ? (
+          <InlineNotification
+            kind="error"
+            lowContrast
+            hideCloseButton
+            title="The block was not saved."
+            subtitle={messageOf(mutation.error)}
+          />
+        ) : null}
+        <TextInput
+          id="block-name"
+          labelText="Name"
+          value={name}
+          onChange={(e) => setName(e.target.value)}
+          invalid={Boolean(errors.name)}
+          invalidText={errors.name}
+          data-modal-primary-focus
+        />
+        <Select
+          id="block-district"
+          labelText="District"
+          value={String(districtId)}
+          onChange={(e) => setDistrictId(Number(e.target.value))}
+          invalid={Boolean(errors.districtId)}
+          invalidText={errors.districtId}
+        >
+          {districts.map((d) => (
+            <SelectItem key={d.id} value={String(d.id)} text={`${d.name} (${d.code})`} />
+          ))}
+        </Select>
+      </Stack>
+    </Modal>
+  );
+}
