@@ -19,8 +19,14 @@ describe('admin manages blocks', () => {
     await page.getByText('6 feature(s) have problems; nothing was imported.').waitFor();
     const problems = page.getByRole('table', { name: 'Problems in the file' });
     await problems.getByText('features[1] (TFA-02)').waitFor();
-    await problems.getByText(/boundary crosses itself/).first().waitFor();
-    await problems.getByText(/not closed/).first().waitFor();
+    await problems
+      .getByText(/boundary crosses itself/)
+      .first()
+      .waitFor();
+    await problems
+      .getByText(/not closed/)
+      .first()
+      .waitFor();
     const table = page.getByRole('table', { name: 'Blocks' });
     expect(await table.getByText('TFA-01').count()).toBe(0);
   });
@@ -35,7 +41,9 @@ describe('admin manages blocks', () => {
     const map = page.getByRole('img', { name: 'Map of blocks' });
     await map.waitFor();
     expect(await map.locator('path').count()).toBeGreaterThanOrEqual(4);
-    await page.screenshot({ path: fileURLToPath(new URL('./screenshots/admin-blocks.png', import.meta.url)) });
+    await page.screenshot({
+      path: fileURLToPath(new URL('./screenshots/admin-blocks.png', import.meta.url)),
+    });
   });
 
   it('filters the blocks table by text', async () => {

@@ -21,7 +21,8 @@ function freePort(): Promise<number> {
 async function waitForHealth(url: string, server: ChildProcess, log: () => string): Promise<void> {
   const deadline = Date.now() + 90_000;
   while (Date.now() < deadline) {
-    if (server.exitCode !== null) throw new Error(`The server exited early (code ${server.exitCode}):\n${log()}`);
+    if (server.exitCode !== null)
+      throw new Error(`The server exited early (code ${server.exitCode}):\n${log()}`);
     try {
       if ((await fetch(url)).ok) return;
     } catch {
@@ -48,7 +49,13 @@ export default async function setup(project: TestProject) {
   let output = '';
   const server = spawn(process.execPath, ['server/dist/main.js'], {
     cwd: repoRoot,
-    env: { ...process.env, PORT: String(port), DATA_DIR: dataDir, DEMO: '1', LOGIN_ATTEMPTS_PER_MINUTE: '100' },
+    env: {
+      ...process.env,
+      PORT: String(port),
+      DATA_DIR: dataDir,
+      DEMO: '1',
+      LOGIN_ATTEMPTS_PER_MINUTE: '100',
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   server.stdout?.on('data', (d) => {

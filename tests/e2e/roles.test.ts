@@ -1,6 +1,13 @@
-import { sectionsFor, type Role } from '@stormhour/shared';
+import { type Role, sectionsFor } from '@stormhour/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { type Browser, baseUrl, DEMO_PASSWORD, openBrowser, signIn, watchOutsideRequests } from './browser.js';
+import {
+  type Browser,
+  baseUrl,
+  DEMO_PASSWORD,
+  openBrowser,
+  signIn,
+  watchOutsideRequests,
+} from './browser.js';
 
 const SECTION_NAMES: Record<string, string> = {
   atlas: 'Atlas',
@@ -61,7 +68,9 @@ describe('each demo role sees only its sections', () => {
     for (const path of ['/api/users', '/api/audit']) {
       const res = await fetch(`${baseUrl()}${path}`, { headers: { Authorization: `Bearer ${token}` } });
       expect(res.status).toBe(403);
-      expect(((await res.json()) as { message: string }).message).toBe('Your role does not give access to this.');
+      expect(((await res.json()) as { message: string }).message).toBe(
+        'Your role does not give access to this.',
+      );
     }
   });
 

@@ -1,4 +1,4 @@
-import type { GeoPolygonal } from '@stormhour/shared';
+import type { BlockedSector, GeoPolygonal, SiteSettings } from '@stormhour/shared';
 import {
   boolean,
   doublePrecision,
@@ -9,7 +9,9 @@ import {
   serial,
   text,
   timestamp,
+  uniqueIndex,
 } from 'drizzle-orm/pg-core';
+import type { JobProblem } from '../jobs/job-problem.js';
 
 const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow();
 
@@ -85,4 +87,169 @@ export const auditLog = pgTable(
     detail: jsonb('detail').$type<Record<string, unknown>>(),
   },
   (t) => [index('audit_at_idx').on(t.at), index('audit_action_idx').on(t.action)],
+);
+
+// ── Radar ──────────────────────────────────────────────────────────────────────────────────────────
+
+export const radarSites = pgTable('radar_sites', {
+  id: serial('id').primaryKey(),
+  code: text('code').notNull().unique(),
+  name: text('name').notNull(),
+  lat: doublePrecision('lat').notNull(),
+  lon: doublePrecision('lon').notNull(),
+  altitudeM: doublePrecision('altitude_m').notNull(),
+  rangeKm: doublePrecision('range_km').notNull(),
+  intervalMin: doublePrecision('interval_min').notNull(),
+  utcOffsetMinutes: integer('utc_offset_minutes').notNull(),
+  blockedSectors: jsonb('blocked_sectors').$type<BlockedSector[]>().notNull().default([]),
+  createdAt: createdAt(),
+});
+
+/** Every version of a site's settings; cells and tracks record the version that made them. */
+export const siteSettings = pgTable(
+  'site_settings',
+  {
+    id: serial('id').primaryKey(),
+    siteId: integer('site_id')
+      .notNull()
+      .references(() => radarSites.id),
+    version: integer('version').notNull(),
+    settings: jsonb('settings').$type<SiteSettings>().notNull(),
+    createdAt: createdAt(),
+    createdBy: integer('created_by').references(() => users.id),
+  },
+  (t) => [uniqueIndex('site_settings_version_idx').on(t.siteId, t.version)],
+);
+
+/** Long work: a row per job, with progress the client polls, and a clear result or error. */
+export const jobs = pgTable(
+  'jobs',
+  {
+    id: serial('id').primaryKey(),
+    kind: text('kind').notNull(),
+    state: text('state', { enum: ['queued', 'running', 'done', 'failed'] })
+      .notNull()
+      .default('queued'),
+    progress: doublePrecision('progress').notNull().default(0),
+    stage: text('stage'),
+    params: jsonb('params').$type<Record<string, unknown>>().notNull().default({}),
+    result: jsonb('result').$type<Record<string, unknown>>(),
+    problems: jsonb('problems').$type<JobProblem[]>().notNull().default([]),
+    error: text('error'),
+    createdBy: integer('created_by').references(() => users.id),
+    createdAt: createdAt(),
+    startedAt: timestamp('started_at', { withTimezone: true }),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [index('jobs_created_idx').on(t.createdAt)],
+);
+
+/** Uploaded files, kept by content hash so the same file twice is recognised. */
+export const uploads = pgTable(
+  'uploads',
+  {
+    id: serial('id').primaryKey(),
+    siteId: integer('site_id').references(() => radarSites.id),
+    kind: text('kind').notNull(),
+    fileName: text('file_name').notNull(),
+    sha256: text('sha256').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    jobId: integer('job_id').references(() => jobs.id),
+    /** Set when the file's rows are stored; a file that failed stays unimported. */
+    importedAt: timestamp('imported_at', { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('uploads_content_idx').on(t.siteId, t.kind, t.sha256)],
+);
+
+/** Scans known to exist for a site (inventory, volumes or cell tables): availability comes from here. */
+export const scans = pgTable(
+  'scans',
+  {
+    id: serial('id').primaryKey(),
+    siteId: integer('site_id')
+      .notNull()
+      .references(() => radarSites.id),
+    time: timestamp('time', { withTimezone: true }).notNull(),
+    uploadId: integer('upload_id').references(() => uploads.id),
+  },
+  (t) => [uniqueIndex('scans_site_time_idx').on(t.siteId, t.time)],
+);
+
+export const tracks = pgTable(
+  'tracks',
+  {
+    id: serial('id').primaryKey(),
+    siteId: integer('site_id')
+      .notNull()
+      .references(() => radarSites.id),
+    /** 'volume' for tracks the engine made from reflectivity, 'cell-table' for imported cell tables. */
+    source: text('source').notNull(),
+    settingsVersion: integer('settings_version').notNull(),
+    externalId: text('external_id'),
+    firstTime: timestamp('first_time', { withTimezone: true }).notNull(),
+    lastTime: timestamp('last_time', { withTimezone: true }).notNull(),
+    scanCount: integer('scan_count').notNull(),
+    durationMin: doublePrecision('duration_min').notNull(),
+    speedMs: doublePrecision('speed_ms'),
+    directionToDeg: doublePrecision('direction_to_deg'),
+    isStorm: boolean('is_storm').notNull(),
+    onset: boolean('onset').notNull(),
+    notOnsetReason: text('not_onset_reason'),
+    parentTrackId: integer('parent_track_id'),
+    mergedIntoTrackId: integer('merged_into_track_id'),
+    startLat: doublePrecision('start_lat').notNull(),
+    startLon: doublePrecision('start_lon').notNull(),
+    startBlockId: integer('start_block_id').references(() => blocks.id),
+    maxVolumeKm3: doublePrecision('max_volume_km3'),
+    maxAreaKm2: doublePrecision('max_area_km2').notNull(),
+    maxEchoTopKm: doublePrecision('max_echo_top_km'),
+    cellType: text('cell_type'),
+  },
+  (t) => [
+    index('tracks_site_time_idx').on(t.siteId, t.firstTime),
+    index('tracks_start_block_idx').on(t.startBlockId),
+  ],
+);
+
+export const cells = pgTable(
+  'cells',
+  {
+    id: serial('id').primaryKey(),
+    siteId: integer('site_id')
+      .notNull()
+      .references(() => radarSites.id),
+    source: text('source').notNull(),
+    scanTime: timestamp('scan_time', { withTimezone: true }).notNull(),
+    uploadId: integer('upload_id').references(() => uploads.id),
+    settingsVersion: integer('settings_version').notNull(),
+    trackId: integer('track_id').references(() => tracks.id, { onDelete: 'set null' }),
+    externalTrackId: text('external_track_id'),
+    lat: doublePrecision('lat').notNull(),
+    lon: doublePrecision('lon').notNull(),
+    xKm: doublePrecision('x_km').notNull(),
+    yKm: doublePrecision('y_km').notNull(),
+    areaKm2: doublePrecision('area_km2').notNull(),
+    volumeKm3: doublePrecision('volume_km3'),
+    maxDbz: doublePrecision('max_dbz'),
+    maxDbzHeightKm: doublePrecision('max_dbz_height_km'),
+    top35Km: doublePrecision('top35_km'),
+    echoTopKm: doublePrecision('echo_top_km'),
+    coreVolumeKm3: doublePrecision('core_volume_km3'),
+    vilMaxKgM2: doublePrecision('vil_max_kg_m2'),
+    vilMassKg: doublePrecision('vil_mass_kg'),
+    rainRateMaxMmH: doublePrecision('rain_rate_max_mm_h'),
+    precipFluxM3s: doublePrecision('precip_flux_m3_s'),
+    semiMajorKm: doublePrecision('semi_major_km'),
+    semiMinorKm: doublePrecision('semi_minor_km'),
+    orientationDeg: doublePrecision('orientation_deg'),
+    cellType: text('cell_type'),
+    blockId: integer('block_id').references(() => blocks.id),
+    parentExternalTrackId: text('parent_external_track_id'),
+  },
+  (t) => [
+    index('cells_site_scan_idx').on(t.siteId, t.scanTime),
+    index('cells_track_idx').on(t.trackId),
+    index('cells_upload_idx').on(t.uploadId),
+  ],
 );
