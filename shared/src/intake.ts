@@ -1,0 +1,194 @@
+import { z } from 'zod';
+
+export const INTAKE_KINDS = ['volume', 'column-max', 'cell-table', 'scan-inventory'] as const;
+export type IntakeKind = (typeof INTAKE_KINDS)[number];
+
+/** Our names for the columns of a cell table; the user maps their file's columns onto these. */
+export const CELL_TABLE_FIELDS = [
+  'scan_time',
+  'track_id',
+  'lat',
+  'lon',
+  'x',
+  'y',
+  'area',
+  'volume_km3',
+  'max_dbz',
+  'top35_km',
+  'echo_top_km',
+  'core40_km3',
+  'vil_max_kg_m2',
+  'parent_track_id',
+] as const;
+export type CellTableField = (typeof CELL_TABLE_FIELDS)[number];
+
+/** Fields a cell table must have: a time, a position (lat/lon or x/y) and an area. */
+export const REQUIRED_CELL_TABLE_FIELDS = ['scan_time', 'area'] as const;
+
+export const CellTableMapping = z
+  .object({
+    /** Our field → the file's column header. Unmapped optional fields are left empty. */
+    columns: z.partialRecord(z.enum(CELL_TABLE_FIELDS), z.string().min(1)),
+    areaUnit: z.enum(['km2', 'm2']).default('km2'),
+    /** 'UTC' or a fixed offset like '+06:00' that the file's times are in (when they carry none). */
+    timeZone: z
+      .string()
+      .regex(/^(UTC|[+-]\d{2}:\d{2})$/, 'Use UTC or an offset such as +06:00')
+      .default('UTC'),
+    position: z.enum(['latlon', 'xy']).default('latlon'),
+    /** For x/y positions: a proj4 definition or EPSG code of the file's coordinates (metres). */
+    crs: z.string().optional(),
+  })
+  .strict();
+export type CellTableMapping = z.infer<typeof CellTableMapping>;
+
+/** The multipart fields of POST /api/intake besides files[]. */
+export const IntakeRequest = z
+  .object({
+    siteId: z.coerce.number().int().positive(),
+    kind: z.enum(INTAKE_KINDS, { message: `kind must be one of ${INTAKE_KINDS.join(', ')}` }),
+    /** On a bad file: stop the whole job (nothing stored), or skip that file and go on. */
+    onError: z.enum(['fail', 'skip']).default('skip'),
+    /** JSON of CellTableMapping; cell tables only. Without it, our own column names are expected. */
+    mapping: z.string().optional(),
+    /**
+     * For files whose metadata lacks the scan time: a pattern for the file name with the tokens
+     * YYYY MM DD hh mm ss, e.g. "VSR_YYYYMMDD_hhmm.tif". Times are UTC.
+     */
+    timePattern: z.string().optional(),
+  })
+  .strict();
+export type IntakeRequest = z.infer<typeof IntakeRequest>;
+
+export type JobState = 'queued' | 'running' | 'done' | 'failed';
+
+export interface JobProblemView {
+  file: string;
+  /** Row, column, band or feature; null for the file as a whole. */
+  where: string | null;
+  problem: string;
+}
+
+export interface JobFileView {
+  uploadId: number;
+  fileName: string;
+  sizeBytes: number;
+  /** The same content was imported before: it is not counted twice. */
+  duplicate: boolean;
+  state: 'waiting' | 'imported' | 'skipped' | 'failed' | 'duplicate';
+}
+
+export interface QualityReport {
+  filesRead: number;
+  filesSkipped: number;
+  duplicates: number;
+  scans: number;
+  cellsFound: number;
+  cellsRejectedTooSmall: number;
+  cellsOutsideCoverage: number;
+  tracks: number;
+  storms: number;
+  onsets: number;
+  flaggedStarts: { split: number; 'data-start': number; 'after-gap': number; 'edge-band': number };
+  gaps: { from: string; to: string; minutes: number }[];
+  cellsPerScan: { time: string; cells: number }[];
+  /** Share of expected scans present, per local day. */
+  availabilityByDay: { date: string; share: number }[];
+}
+
+export interface JobView {
+  id: number;
+  kind: string;
+  state: JobState;
+  /** 0–1. */
+  progress: number;
+  /** What it is doing now, in words. */
+  stage: string | null;
+  params: Record<string, unknown>;
+  files: JobFileView[];
+  report: QualityReport | null;
+  problems: JobProblemView[];
+  error: string | null;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+}
+
+export type CellType = 'shallow' | 'congestus' | 'deep';
+export type NotOnsetReason = 'split' | 'data-start' | 'after-gap' | 'edge-band';
+
+export interface TrackView {
+  id: number;
+  siteId: number;
+  source: 'volume' | 'cell-table';
+  externalId: string | null;
+  firstTime: string;
+  lastTime: string;
+  scanCount: number;
+  durationMin: number;
+  speedMs: number | null;
+  directionToDeg: number | null;
+  isStorm: boolean;
+  onset: boolean;
+  notOnsetReason: NotOnsetReason | null;
+  parentTrackId: number | null;
+  mergedIntoTrackId: number | null;
+  startLat: number;
+  startLon: number;
+  startBlockId: number | null;
+  startBlockCode: string | null;
+  maxVolumeKm3: number | null;
+  maxAreaKm2: number;
+  maxEchoTopKm: number | null;
+  cellType: CellType | null;
+  settingsVersion: number;
+}
+
+export interface CellView {
+  id: number;
+  scanTime: string;
+  trackId: number | null;
+  lat: number;
+  lon: number;
+  areaKm2: number;
+  volumeKm3: number | null;
+  maxDbz: number | null;
+  top35Km: number | null;
+  echoTopKm: number | null;
+  coreVolumeKm3: number | null;
+  vilMaxKgM2: number | null;
+  rainRateMaxMmH: number | null;
+  precipFluxM3s: number | null;
+  semiMajorKm: number | null;
+  semiMinorKm: number | null;
+  orientationDeg: number | null;
+  cellType: CellType | null;
+  blockId: number | null;
+}
+
+export interface TrackDetail {
+  track: TrackView;
+  cells: CellView[];
+}
+
+export const TracksQuery = z.object({
+  siteId: z.coerce.number().int().positive(),
+  from: z.iso.datetime({ offset: true }).optional(),
+  to: z.iso.datetime({ offset: true }).optional(),
+  blockId: z.coerce.number().int().positive().optional(),
+  onsetOnly: z
+    .enum(['true', 'false'])
+    .transform((v) => v === 'true')
+    .optional(),
+  stormsOnly: z
+    .enum(['true', 'false'])
+    .transform((v) => v === 'true')
+    .optional(),
+  type: z.enum(['shallow', 'congestus', 'deep']).optional(),
+  minDurationMin: z.coerce.number().min(0).optional(),
+  sort: z.enum(['firstTime', 'durationMin', 'maxVolumeKm3', 'maxEchoTopKm', 'speedMs']).default('firstTime'),
+  order: z.enum(['asc', 'desc']).default('asc'),
+  offset: z.coerce.number().int().min(0).default(0),
+  limit: z.coerce.number().int().min(1).max(1000).default(100),
+});
+export type TracksQuery = z.input<typeof TracksQuery>;
