@@ -39,6 +39,7 @@ CREATE TABLE "jobs" (
 	"params" jsonb DEFAULT '{}'::jsonb NOT NULL,
 	"result" jsonb,
 	"problems" jsonb DEFAULT '[]'::jsonb NOT NULL,
+	"files" jsonb DEFAULT '[]'::jsonb NOT NULL,
 	"error" text,
 	"created_by" integer,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,

@@ -11,7 +11,7 @@ import {
   timestamp,
   uniqueIndex,
 } from 'drizzle-orm/pg-core';
-import type { JobProblem } from '../jobs/job-problem.js';
+import type { JobFile, JobProblem } from '../jobs/job-problem.js';
 
 const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow();
 
@@ -135,6 +135,7 @@ export const jobs = pgTable(
     params: jsonb('params').$type<Record<string, unknown>>().notNull().default({}),
     result: jsonb('result').$type<Record<string, unknown>>(),
     problems: jsonb('problems').$type<JobProblem[]>().notNull().default([]),
+    files: jsonb('files').$type<JobFile[]>().notNull().default([]),
     error: text('error'),
     createdBy: integer('created_by').references(() => users.id),
     createdAt: createdAt(),

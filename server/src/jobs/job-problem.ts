@@ -4,3 +4,12 @@ export interface JobProblem {
   where: string | null;
   problem: string;
 }
+
+/** A file a job was given, and what became of it. */
+export interface JobFile {
+  uploadId: number;
+  fileName: string;
+  sizeBytes: number;
+  duplicate: boolean;
+  state: 'waiting' | 'imported' | 'skipped' | 'failed' | 'duplicate';
+}
