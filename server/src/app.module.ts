@@ -11,6 +11,9 @@ import { ConfigModule } from './config/config.module.js';
 import { DatabaseModule } from './database/database.module.js';
 import { DemoModule } from './demo/demo.module.js';
 import { HealthModule } from './health/health.module.js';
+import { IntakeModule } from './intake/intake.module.js';
+import { JobsModule } from './jobs/jobs.module.js';
+import { RadarModule } from './radar/radar.module.js';
 import { RegionsModule } from './regions/regions.module.js';
 import { UsersModule } from './users/users.module.js';
 
@@ -36,6 +39,9 @@ export class AppModule implements NestModule {
         UsersModule,
         RegionsModule,
         HealthModule,
+        JobsModule,
+        RadarModule,
+        IntakeModule,
         DemoModule,
         ...staticClient,
       ],

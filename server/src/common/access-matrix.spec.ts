@@ -25,6 +25,18 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'POST /api/blocks/import': ['admin'],
   'GET /api/audit': ['admin'],
   'GET /api/audit/actions': ['admin'],
+  'GET /api/radar-sites': ['scientist', 'writer', 'admin'],
+  'GET /api/radar-sites/:id': ['scientist', 'writer', 'admin'],
+  'GET /api/radar-sites/:id/coverage': ['scientist', 'writer', 'admin'],
+  'GET /api/radar-sites/:id/settings': ['scientist'],
+  'POST /api/radar-sites': ['scientist'],
+  'PATCH /api/radar-sites/:id': ['scientist'],
+  'POST /api/intake': ['scientist'],
+  'GET /api/jobs': ['scientist', 'admin'],
+  'GET /api/jobs/:id': ['scientist', 'admin'],
+  'GET /api/tracks': ['scientist'],
+  'GET /api/tracks/:id': ['scientist'],
+  'GET /api/cells': ['scientist'],
 };
 
 interface ExpressLayer {

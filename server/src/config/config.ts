@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
@@ -20,6 +21,8 @@ export interface AppConfig {
   clientDist: string | null;
   /** Folder holding the demo scenario files. */
   demoDataDir: string;
+  /** Where uploaded files are kept, by content hash. */
+  filesDir: string;
 }
 
 export const APP_CONFIG = Symbol('APP_CONFIG');
@@ -73,6 +76,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     refreshDays: e.REFRESH_DAYS,
     clientDist: existsSync(join(clientDist, 'index.html')) ? clientDist : null,
     demoDataDir: resolve(e.DEMO_DATA_DIR ?? join(repoRoot, 'sample-data/vessary')),
+    filesDir: inMemory ? join(tmpdir(), `stormhour-files-${process.pid}`) : join(dataDir, 'uploads'),
   };
 }
 

@@ -1,4 +1,6 @@
 import 'reflect-metadata';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { PGlite } from '@electric-sql/pglite';
 import type { INestApplication } from '@nestjs/common';
 import { Test } from '@nestjs/testing';
@@ -35,6 +37,7 @@ export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
     refreshDays: 7,
     clientDist: null,
     demoDataDir: '',
+    filesDir: join(tmpdir(), `stormhour-test-files-${process.pid}`),
     ...overrides,
   };
 }

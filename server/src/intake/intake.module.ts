@@ -1,0 +1,24 @@
+import { Module } from '@nestjs/common';
+import { MulterModule } from '@nestjs/platform-express';
+import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { JobsModule } from '../jobs/jobs.module.js';
+import { RadarModule } from '../radar/radar.module.js';
+import { IntakeController } from './intake.controller.js';
+import { IntakeService } from './intake.service.js';
+import { RadarIntakeHandler } from './radar-intake.handler.js';
+import { UploadsRepository } from './uploads.repository.js';
+
+@Module({
+  imports: [
+    JobsModule,
+    RadarModule,
+    MulterModule.registerAsync({
+      inject: [APP_CONFIG],
+      useFactory: (config: AppConfig) => ({ limits: { fileSize: config.uploadLimitBytes, files: 500 } }),
+    }),
+  ],
+  controllers: [IntakeController],
+  providers: [IntakeService, UploadsRepository, RadarIntakeHandler],
+  exports: [IntakeService],
+})
+export class IntakeModule {}

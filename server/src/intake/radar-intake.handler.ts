@@ -1,0 +1,329 @@
+import { Inject, Injectable } from '@nestjs/common';
+import type { CellTableMapping, IntakeKind, SiteSettings, SiteView } from '@stormhour/shared';
+import proj4 from 'proj4';
+import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import type { JobFile, JobProblem } from '../jobs/job-problem.js';
+import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
+import { identifyCells } from '../radar/engine/identify.js';
+import { sitePlane } from '../radar/engine/site-plane.js';
+import { RadarDataService } from '../radar/radar-data.service.js';
+import { SitesRepository } from '../radar/sites.repository.js';
+import { type CellTableRow, guessMapping, parseCellTable, parseScanInventory } from './cell-table.js';
+import { FileProblem, readReflectivityTiff } from './geotiff-reader.js';
+import {
+  type PreparedCell,
+  type PreparedTrack,
+  type SiteContext,
+  tracksByEngine,
+  tracksFromIds,
+  typeOf,
+  withinCoverage,
+} from './prepare-cells.js';
+import { buildReport } from './quality-report.js';
+import { UploadStore } from './upload-store.js';
+import { UploadsRepository } from './uploads.repository.js';
+
+export const RADAR_INTAKE_JOB = 'radar-intake';
+
+export interface RadarIntakeParams {
+  siteId: number;
+  kind: IntakeKind;
+  onError: 'fail' | 'skip';
+  mapping?: CellTableMapping;
+  timePattern?: string;
+  settingsVersion: number;
+  files: { uploadId: number; fileName: string; duplicate: boolean }[];
+}
+
+/** What reading one file gave, before anything is stored. */
+type Parsed =
+  | { kind: 'scan-inventory'; times: number[] }
+  | { kind: 'cell-table'; cells: PreparedCell[]; tracks: PreparedTrack[]; outside: number; times: number[] }
+  | { kind: 'scan'; time: number; cells: PreparedCell[]; rejectedTooSmall: number; outside: number };
+
+/**
+ * The radar intake job: reads every file first (nothing stored), then stores each good file in its
+ * own transaction, then re-tracks volume scans and re-decides onsets against the whole inventory.
+ */
+@Injectable()
+export class RadarIntakeHandler {
+  private readonly store: UploadStore;
+
+  constructor(
+    @Inject(APP_CONFIG) config: AppConfig,
+    private readonly sites: SitesRepository,
+    private readonly uploads: UploadsRepository,
+    private readonly radar: RadarDataService,
+  ) {
+    this.store = new UploadStore(config.filesDir);
+  }
+
+  async run(p: RadarIntakeParams, ctx: JobContext): Promise<JobOutcome> {
+    const site = (await this.sites.find(p.siteId)) as SiteView;
+    const settings = (await this.sites.settingsVersion(p.siteId, p.settingsVersion)) as SiteSettings;
+    const siteCtx: SiteContext = {
+      plane: sitePlane(site),
+      coverage: site,
+      settings,
+      intervalMs: site.intervalMin * 60_000,
+    };
+    const files: JobFile[] = p.files.map((f) => ({
+      uploadId: f.uploadId,
+      fileName: f.fileName,
+      sizeBytes: 0,
+      duplicate: f.duplicate,
+      state: f.duplicate ? 'duplicate' : 'waiting',
+    }));
+    const problems: JobProblem[] = [];
+    const parsed = new Map<number, Parsed>();
+    const todo = files.filter((f) => !f.duplicate);
+
+    for (const [n, f] of todo.entries()) {
+      await ctx.progress((0.5 * n) / todo.length, `Reading ${f.fileName} (${n + 1} of ${todo.length})`);
+      const upload = await this.uploads.find(f.uploadId);
+      if (!upload) throw new Error(`upload ${f.uploadId} vanished`);
+      f.sizeBytes = upload.sizeBytes;
+      try {
+        parsed.set(
+          f.uploadId,
+          await this.parse(p, siteCtx, f.fileName, await this.store.read(upload.sha256)),
+        );
+      } catch (e) {
+        if (!(e instanceof FileProblem)) throw e;
+        for (const one of e.all) problems.push({ file: f.fileName, ...one });
+        f.state = p.onError === 'fail' ? 'failed' : 'skipped';
+        if (p.onError === 'fail') {
+          await ctx.setFiles(files);
+          return {
+            result: {},
+            problems,
+            error: `${f.fileName} has problems, so the job stopped as asked and nothing was stored.`,
+          };
+        }
+      }
+    }
+    await ctx.setFiles(files);
+
+    const locator = await this.radar.blockLocator();
+    const newTracks: number[] = [];
+    let cellsFound = 0;
+    let rejected = 0;
+    let outside = 0;
+    const fileTimes: number[] = [];
+    for (const [n, f] of todo.entries()) {
+      const result = parsed.get(f.uploadId);
+      if (!result) continue;
+      await ctx.progress(0.5 + (0.4 * n) / todo.length, `Storing ${f.fileName}`);
+      const ids = await this.radar.transaction(async (tx) => {
+        await this.uploads.markImported(f.uploadId, tx);
+        if (result.kind === 'scan-inventory') {
+          await this.radar.insertScans(p.siteId, result.times, f.uploadId, tx);
+          return [];
+        }
+        const times = result.kind === 'scan' ? [result.time] : result.times;
+        await this.radar.insertScans(p.siteId, times, f.uploadId, tx);
+        return this.radar.store(
+          {
+            siteId: p.siteId,
+            source: result.kind === 'scan' ? 'volume' : 'cell-table',
+            uploadId: f.uploadId,
+            settingsVersion: p.settingsVersion,
+            cells: result.cells,
+            tracks: result.kind === 'cell-table' ? result.tracks : [],
+          },
+          locator,
+          tx,
+        );
+      });
+      newTracks.push(...ids);
+      if (result.kind !== 'scan-inventory') {
+        cellsFound += result.cells.length;
+        outside += result.outside;
+      }
+      if (result.kind === 'scan') rejected += result.rejectedTooSmall;
+      fileTimes.push(...(result.kind === 'scan' ? [result.time] : result.times));
+      f.state = 'imported';
+    }
+    await ctx.setFiles(files);
+
+    await ctx.progress(0.92, 'Tracking and deciding onsets');
+    const tracked = await this.radar.transaction(async (tx) => {
+      const retracked =
+        p.kind === 'volume' || p.kind === 'column-max'
+          ? await this.radar.retrackVolumes(p.siteId, siteCtx, p.settingsVersion, locator, tx)
+          : [];
+      await this.radar.recomputeStarts(p.siteId, siteCtx, tx);
+      return retracked;
+    });
+    const jobTracks = p.kind === 'volume' || p.kind === 'column-max' ? tracked : newTracks;
+
+    await ctx.progress(0.97, 'Writing the quality report');
+    const from = fileTimes.length ? Math.min(...fileTimes) : 0;
+    const to = fileTimes.length ? Math.max(...fileTimes) : 0;
+    const allScans = await this.radar.siteScanTimes(p.siteId);
+    const span = allScans.filter((t) => t >= from && t <= to);
+    const report = buildReport({
+      filesRead: [...parsed.keys()].length,
+      filesSkipped: files.filter((f) => f.state === 'skipped').length,
+      duplicates: files.filter((f) => f.duplicate).length,
+      scans: new Set(fileTimes).size,
+      cellsFound,
+      cellsRejectedTooSmall: rejected,
+      cellsOutsideCoverage: outside,
+      tracks: await this.radar.trackSummaries(jobTracks),
+      siteScans: span,
+      cellsPerScan: fileTimes.length ? await this.radar.cellsPerScan(p.siteId, from, to) : [],
+      intervalMs: siteCtx.intervalMs,
+      maxGapMs: settings.maxGapIntervals * siteCtx.intervalMs,
+      utcOffsetMinutes: site.utcOffsetMinutes,
+    });
+    return { result: report as unknown as Record<string, unknown>, problems };
+  }
+
+  private async parse(
+    p: RadarIntakeParams,
+    site: SiteContext,
+    fileName: string,
+    content: Buffer,
+  ): Promise<Parsed> {
+    const latestTime = Date.now() + 10 * 60_000;
+    if (p.kind === 'scan-inventory') {
+      const { times, problems } = parseScanInventory(content.toString('utf8'), latestTime);
+      if (problems.length) throw tableProblem(problems);
+      return { kind: 'scan-inventory', times };
+    }
+    if (p.kind === 'cell-table') return this.parseCellTable(p, site, content, latestTime);
+    const { time, grid } = await readReflectivityTiff(content, {
+      fileName,
+      kind: p.kind,
+      timePattern: p.timePattern,
+      plane: site.plane,
+      latestTime,
+    });
+    const nearestKm = Math.min(
+      ...Array.from({ length: grid.xKm.length }, (_, k) => Math.hypot(grid.xKm[k], grid.yKm[k])),
+    );
+    if (nearestKm > site.coverage.rangeKm) {
+      throw new FileProblem(
+        null,
+        `the grid lies ${nearestKm.toFixed(0)} km from the radar at its nearest, outside its ${site.coverage.rangeKm} km coverage: is it another site's file?`,
+      );
+    }
+    const s = site.settings;
+    const found = identifyCells(grid, {
+      thresholdDbz: s.thresholdDbz,
+      minVolumeKm3: s.minVolumeKm3,
+      minAreaKm2: s.minAreaKm2,
+      connectivity3d: s.connectivity3d,
+      connectivity2d: s.connectivity2d,
+      echoTopDbz: s.echoTopDbz,
+      coreDbz: s.coreDbz,
+      vilCapDbz: s.vilCapDbz,
+      zr: { a: s.zrA, b: s.zrB },
+      typeEdgesKm: s.typeEdgesKm,
+      typeHeight: s.typeHeight,
+    });
+    const cells: PreparedCell[] = found.cells.map((c) => ({
+      time,
+      lon: c.lon,
+      lat: c.lat,
+      xKm: c.xKm,
+      yKm: c.yKm,
+      areaKm2: c.areaKm2,
+      volumeKm3: c.volumeKm3,
+      maxDbz: c.maxDbz,
+      maxDbzHeightKm: c.maxDbzHeightKm,
+      top35Km: c.top35Km,
+      echoTopKm: c.echoTopKm,
+      coreVolumeKm3: c.coreVolumeKm3,
+      vilMaxKgM2: c.vilMaxKgM2,
+      vilMassKg: c.vilMassKg,
+      rainRateMaxMmH: c.rainRateMaxMmH,
+      precipFluxM3s: c.precipFluxM3s,
+      semiMajorKm: c.semiMajorKm,
+      semiMinorKm: c.semiMinorKm,
+      orientationDeg: c.orientationDeg,
+      cellType: c.type,
+      externalTrackId: null,
+      parentExternalTrackId: null,
+    }));
+    const { inside, outside } = withinCoverage(cells, site.coverage);
+    return { kind: 'scan', time, cells: inside, rejectedTooSmall: found.rejectedTooSmall, outside };
+  }
+
+  private parseCellTable(
+    p: RadarIntakeParams,
+    site: SiteContext,
+    content: Buffer,
+    latestTime: number,
+  ): Parsed {
+    const mapping = p.mapping as CellTableMapping;
+    const text = content.toString('utf8');
+    const columns = Object.keys(mapping.columns).length ? mapping.columns : guessFromHeader(text);
+    const xyToLonLat = mapping.position === 'xy' && mapping.crs ? xyConverter(mapping.crs) : undefined;
+    const { rows, problems } = parseCellTable(text, { ...mapping, columns }, { latestTime, xyToLonLat });
+    if (problems.length) throw tableProblem(problems);
+    const all = rows.map((r) => toPrepared(r, site));
+    const { inside, outside } = withinCoverage(all, site.coverage);
+    if (inside.length === 0) {
+      const nearest = Math.min(...all.map((c) => Math.hypot(c.xKm, c.yKm)));
+      throw new FileProblem(
+        null,
+        `none of its ${all.length} cells lie within the site's coverage (the nearest is ${nearest.toFixed(0)} km from the radar)`,
+      );
+    }
+    const withIds = inside.some((c) => c.externalTrackId !== null);
+    const tracks = withIds ? tracksFromIds(inside, site) : tracksByEngine(inside, site);
+    return {
+      kind: 'cell-table',
+      cells: inside,
+      tracks,
+      outside,
+      times: [...new Set(inside.map((c) => c.time))],
+    };
+  }
+}
+
+function toPrepared(r: CellTableRow, site: SiteContext): PreparedCell {
+  const [xKm, yKm] = site.plane.toKm(r.lon, r.lat);
+  const cell: PreparedCell = {
+    time: r.time,
+    lon: r.lon,
+    lat: r.lat,
+    xKm,
+    yKm,
+    areaKm2: r.areaKm2,
+    volumeKm3: r.volumeKm3,
+    maxDbz: r.maxDbz,
+    top35Km: r.top35Km,
+    echoTopKm: r.echoTopKm,
+    coreVolumeKm3: r.core40Km3,
+    vilMaxKgM2: r.vilMaxKgM2,
+    cellType: null,
+    externalTrackId: r.trackId,
+    parentExternalTrackId: r.parentTrackId,
+  };
+  cell.cellType = typeOf(cell, site.settings);
+  return cell;
+}
+
+function guessFromHeader(text: string) {
+  const header = text.slice(0, text.indexOf('\n') >= 0 ? text.indexOf('\n') : text.length);
+  return guessMapping(header.split(',').map((h) => h.trim().replace(/^"|"$/g, '')));
+}
+
+function xyConverter(crs: string): (x: number, y: number) => [number, number] {
+  try {
+    const c = proj4(crs, 'EPSG:4326');
+    return (x, y) => c.forward([x, y]) as [number, number];
+  } catch {
+    throw new FileProblem(
+      'mapping.crs',
+      `"${crs}" is not a CRS proj4 knows: give a proj4 string or an EPSG code such as EPSG:32645`,
+    );
+  }
+}
+
+function tableProblem(problems: { where: string | null; problem: string }[]): FileProblem {
+  return new FileProblem(problems[0].where, problems[0].problem, problems);
+}
