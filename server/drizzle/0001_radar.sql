@@ -65,6 +65,7 @@ CREATE TABLE "radar_sites" (
 CREATE TABLE "scans" (
 	"id" serial PRIMARY KEY NOT NULL,
 	"site_id" integer NOT NULL,
+	"source" text NOT NULL,
 	"time" timestamp with time zone NOT NULL,
 	"upload_id" integer
 );
@@ -133,7 +134,8 @@ CREATE INDEX "cells_site_scan_idx" ON "cells" USING btree ("site_id","scan_time"
 CREATE INDEX "cells_track_idx" ON "cells" USING btree ("track_id");--> statement-breakpoint
 CREATE INDEX "cells_upload_idx" ON "cells" USING btree ("upload_id");--> statement-breakpoint
 CREATE INDEX "jobs_created_idx" ON "jobs" USING btree ("created_at");--> statement-breakpoint
-CREATE UNIQUE INDEX "scans_site_time_idx" ON "scans" USING btree ("site_id","time");--> statement-breakpoint
+CREATE UNIQUE INDEX "scans_site_source_time_idx" ON "scans" USING btree ("site_id","source","time");--> statement-breakpoint
+CREATE INDEX "scans_site_time_idx" ON "scans" USING btree ("site_id","time");--> statement-breakpoint
 CREATE UNIQUE INDEX "site_settings_version_idx" ON "site_settings" USING btree ("site_id","version");--> statement-breakpoint
 CREATE INDEX "tracks_site_time_idx" ON "tracks" USING btree ("site_id","first_time");--> statement-breakpoint
 CREATE INDEX "tracks_start_block_idx" ON "tracks" USING btree ("start_block_id");--> statement-breakpoint

@@ -120,7 +120,7 @@ export type NotOnsetReason = 'split' | 'data-start' | 'after-gap' | 'edge-band';
 export interface TrackView {
   id: number;
   siteId: number;
-  source: 'volume' | 'cell-table';
+  source: 'volume' | 'column-max' | 'cell-table';
   externalId: string | null;
   firstTime: string;
   lastTime: string;

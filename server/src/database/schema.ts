@@ -163,7 +163,11 @@ export const uploads = pgTable(
   (t) => [uniqueIndex('uploads_content_idx').on(t.siteId, t.kind, t.sha256)],
 );
 
-/** Scans known to exist for a site (inventory, volumes or cell tables): availability comes from here. */
+/**
+ * Scans known to exist for a site, by where we learnt of them: the inventory, a cell table, or the
+ * volume or column-maximum files themselves. Availability is the union; each source's own scans
+ * decide where its tracks could have been seen starting.
+ */
 export const scans = pgTable(
   'scans',
   {
@@ -171,10 +175,14 @@ export const scans = pgTable(
     siteId: integer('site_id')
       .notNull()
       .references(() => radarSites.id),
+    source: text('source', { enum: ['scan-inventory', 'cell-table', 'volume', 'column-max'] }).notNull(),
     time: timestamp('time', { withTimezone: true }).notNull(),
     uploadId: integer('upload_id').references(() => uploads.id),
   },
-  (t) => [uniqueIndex('scans_site_time_idx').on(t.siteId, t.time)],
+  (t) => [
+    uniqueIndex('scans_site_source_time_idx').on(t.siteId, t.source, t.time),
+    index('scans_site_time_idx').on(t.siteId, t.time),
+  ],
 );
 
 export const tracks = pgTable(

@@ -1,7 +1,9 @@
 import { Module } from '@nestjs/common';
+import { IntakeModule } from '../intake/intake.module.js';
+import { RadarModule } from '../radar/radar.module.js';
 import { RegionsModule } from '../regions/regions.module.js';
 import { UsersModule } from '../users/users.module.js';
 import { DemoSeeder } from './demo.seeder.js';
 
-@Module({ imports: [UsersModule, RegionsModule], providers: [DemoSeeder] })
+@Module({ imports: [UsersModule, RegionsModule, RadarModule, IntakeModule], providers: [DemoSeeder] })
 export class DemoModule {}

@@ -196,7 +196,7 @@ export async function readReflectivityTiff(content: Buffer, opts: ReadOptions): 
     if (valid === 0) throw new FileProblem(`band ${b + 1}`, 'has no data: every value is nodata');
   }
 
-  const toSite = crs === opts.plane.definition ? null : proj4(crs, 'EPSG:4326');
+  const toSite = sameAsPlane(crs, opts.plane) ? null : proj4(crs, 'EPSG:4326');
   const xKm = new Float64Array(plane);
   const yKm = new Float64Array(plane);
   const areaKm2 = new Float64Array(plane);
@@ -234,6 +234,19 @@ export async function readReflectivityTiff(content: Buffer, opts: ReadOptions): 
       toLonLat: opts.plane.toLonLat,
     },
   };
+}
+
+/** A radar-centred file on the site's own plane needs no reprojection, only metres to km. */
+function sameAsPlane(crs: string, plane: SitePlane): boolean {
+  if (crs === plane.definition) return true;
+  const param = (def: string, key: string) =>
+    Number(new RegExp(`\\+${key}=([-0-9.e]+)`).exec(def)?.[1] ?? Number.NaN);
+  return (
+    crs.includes('+proj=aeqd') &&
+    ['lat_0', 'lon_0'].every((k) => Math.abs(param(crs, k) - param(plane.definition, k)) < 1e-9) &&
+    (param(crs, 'x_0') || 0) === 0 &&
+    (param(crs, 'y_0') || 0) === 0
+  );
 }
 
 /** Area of a lon/lat cell on WGS84 from the meridian and prime-vertical radii (Snyder 1987). */

@@ -6,7 +6,7 @@ import type { JobFile, JobProblem } from '../jobs/job-problem.js';
 import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
 import { identifyCells } from '../radar/engine/identify.js';
 import { sitePlane } from '../radar/engine/site-plane.js';
-import { RadarDataService } from '../radar/radar-data.service.js';
+import { type CellSource, RadarDataService } from '../radar/radar-data.service.js';
 import { SitesRepository } from '../radar/sites.repository.js';
 import { type CellTableRow, guessMapping, parseCellTable, parseScanInventory } from './cell-table.js';
 import { FileProblem, readReflectivityTiff } from './geotiff-reader.js';
@@ -105,6 +105,8 @@ export class RadarIntakeHandler {
     await ctx.setFiles(files);
 
     const locator = await this.radar.blockLocator();
+    // An inventory changes how cell-table starts are judged; the other kinds judge their own.
+    const cellSource: CellSource = p.kind === 'scan-inventory' ? 'cell-table' : p.kind;
     const newTracks: number[] = [];
     let cellsFound = 0;
     let rejected = 0;
@@ -117,15 +119,15 @@ export class RadarIntakeHandler {
       const ids = await this.radar.transaction(async (tx) => {
         await this.uploads.markImported(f.uploadId, tx);
         if (result.kind === 'scan-inventory') {
-          await this.radar.insertScans(p.siteId, result.times, f.uploadId, tx);
+          await this.radar.insertScans(p.siteId, 'scan-inventory', result.times, f.uploadId, tx);
           return [];
         }
         const times = result.kind === 'scan' ? [result.time] : result.times;
-        await this.radar.insertScans(p.siteId, times, f.uploadId, tx);
+        await this.radar.insertScans(p.siteId, p.kind, times, f.uploadId, tx);
         return this.radar.store(
           {
             siteId: p.siteId,
-            source: result.kind === 'scan' ? 'volume' : 'cell-table',
+            source: cellSource,
             uploadId: f.uploadId,
             settingsVersion: p.settingsVersion,
             cells: result.cells,
@@ -150,16 +152,17 @@ export class RadarIntakeHandler {
     const tracked = await this.radar.transaction(async (tx) => {
       const retracked =
         p.kind === 'volume' || p.kind === 'column-max'
-          ? await this.radar.retrackVolumes(p.siteId, siteCtx, p.settingsVersion, locator, tx)
+          ? await this.radar.retrackScans(p.siteId, p.kind, siteCtx, p.settingsVersion, locator, tx)
           : [];
-      await this.radar.recomputeStarts(p.siteId, siteCtx, tx);
+      await this.radar.recomputeStarts(p.siteId, cellSource, siteCtx, tx);
       return retracked;
     });
     const jobTracks = p.kind === 'volume' || p.kind === 'column-max' ? tracked : newTracks;
 
     await ctx.progress(0.97, 'Writing the quality report');
-    const from = fileTimes.length ? Math.min(...fileTimes) : 0;
-    const to = fileTimes.length ? Math.max(...fileTimes) : 0;
+    // Seasons hold tens of thousands of times: no spread into Math.min.
+    const from = fileTimes.reduce((a, t) => Math.min(a, t), Infinity);
+    const to = fileTimes.reduce((a, t) => Math.max(a, t), -Infinity);
     const allScans = await this.radar.siteScanTimes(p.siteId);
     const span = allScans.filter((t) => t >= from && t <= to);
     const report = buildReport({
@@ -172,7 +175,7 @@ export class RadarIntakeHandler {
       cellsOutsideCoverage: outside,
       tracks: await this.radar.trackSummaries(jobTracks),
       siteScans: span,
-      cellsPerScan: fileTimes.length ? await this.radar.cellsPerScan(p.siteId, from, to) : [],
+      cellsPerScan: fileTimes.length ? await this.radar.cellsPerScan(p.siteId, cellSource, from, to) : [],
       intervalMs: siteCtx.intervalMs,
       maxGapMs: settings.maxGapIntervals * siteCtx.intervalMs,
       utcOffsetMinutes: site.utcOffsetMinutes,
@@ -200,9 +203,9 @@ export class RadarIntakeHandler {
       plane: site.plane,
       latestTime,
     });
-    const nearestKm = Math.min(
-      ...Array.from({ length: grid.xKm.length }, (_, k) => Math.hypot(grid.xKm[k], grid.yKm[k])),
-    );
+    let nearestKm = Infinity;
+    for (let k = 0; k < grid.xKm.length; k++)
+      nearestKm = Math.min(nearestKm, Math.hypot(grid.xKm[k], grid.yKm[k]));
     if (nearestKm > site.coverage.rangeKm) {
       throw new FileProblem(
         null,
@@ -266,7 +269,7 @@ export class RadarIntakeHandler {
     const all = rows.map((r) => toPrepared(r, site));
     const { inside, outside } = withinCoverage(all, site.coverage);
     if (inside.length === 0) {
-      const nearest = Math.min(...all.map((c) => Math.hypot(c.xKm, c.yKm)));
+      const nearest = all.reduce((a, c) => Math.min(a, Math.hypot(c.xKm, c.yKm)), Infinity);
       throw new FileProblem(
         null,
         `none of its ${all.length} cells lie within the site's coverage (the nearest is ${nearest.toFixed(0)} km from the radar)`,

@@ -4,6 +4,7 @@ import { and, asc, desc, eq, gte, inArray, lte, type SQL, sql } from 'drizzle-or
 import { DATABASE, type DatabaseHandle, type Executor } from '../database/database.js';
 import { blocks, cells, scans, tracks } from '../database/schema.js';
 
+export type ScanSource = (typeof scans.$inferInsert)['source'];
 export type NewTrackRow = typeof tracks.$inferInsert;
 export type NewCellRow = typeof cells.$inferInsert;
 type TrackRow = typeof tracks.$inferSelect;
@@ -88,11 +89,17 @@ export class RadarDataRepository {
     return this.handle.db.transaction(work);
   }
 
-  /** Adds scan times; times already known for the site are left as they are. */
-  async insertScans(siteId: number, times: number[], uploadId: number | null, tx: Executor): Promise<number> {
+  /** Adds scan times learnt from one source; times that source already gave are left as they are. */
+  async insertScans(
+    siteId: number,
+    source: ScanSource,
+    times: number[],
+    uploadId: number | null,
+    tx: Executor,
+  ): Promise<number> {
     let added = 0;
     for (let i = 0; i < times.length; i += BATCH) {
-      const rows = times.slice(i, i + BATCH).map((t) => ({ siteId, time: new Date(t), uploadId }));
+      const rows = times.slice(i, i + BATCH).map((t) => ({ siteId, source, time: new Date(t), uploadId }));
       const inserted = await tx.insert(scans).values(rows).onConflictDoNothing().returning({ id: scans.id });
       added += inserted.length;
     }
@@ -126,16 +133,24 @@ export class RadarDataRepository {
     }
   }
 
-  async siteScanTimes(siteId: number, executor: Executor = this.handle.db): Promise<Float64Array> {
+  /** Distinct scan times of a site, from the given sources (all when none are named), sorted. */
+  async siteScanTimes(
+    siteId: number,
+    sources?: ScanSource[],
+    executor: Executor = this.handle.db,
+  ): Promise<Float64Array> {
+    const where = sources
+      ? and(eq(scans.siteId, siteId), inArray(scans.source, sources))
+      : eq(scans.siteId, siteId);
     const rows = await executor
-      .select({ time: scans.time })
+      .selectDistinct({ time: scans.time })
       .from(scans)
-      .where(eq(scans.siteId, siteId))
+      .where(where)
       .orderBy(asc(scans.time));
     return Float64Array.from(rows, (r) => r.time.getTime());
   }
 
-  async tracksForStarts(siteId: number, executor: Executor = this.handle.db) {
+  async tracksForStarts(siteId: number, source: string, executor: Executor = this.handle.db) {
     return executor
       .select({
         id: tracks.id,
@@ -148,7 +163,7 @@ export class RadarDataRepository {
         notOnsetReason: tracks.notOnsetReason,
       })
       .from(tracks)
-      .where(eq(tracks.siteId, siteId));
+      .where(and(eq(tracks.siteId, siteId), eq(tracks.source, source)));
   }
 
   /** Writes changed onset decisions in one statement per batch. */
@@ -175,11 +190,11 @@ export class RadarDataRepository {
     await tx.delete(tracks).where(and(eq(tracks.siteId, siteId), eq(tracks.source, source)));
   }
 
-  async volumeCells(siteId: number, executor: Executor) {
+  async cellsOf(siteId: number, source: string, executor: Executor) {
     return executor
       .select()
       .from(cells)
-      .where(and(eq(cells.siteId, siteId), eq(cells.source, 'volume')))
+      .where(and(eq(cells.siteId, siteId), eq(cells.source, source)))
       .orderBy(asc(cells.scanTime), asc(cells.id));
   }
 
@@ -201,11 +216,12 @@ export class RadarDataRepository {
     return out;
   }
 
-  async cellsPerScan(siteId: number, from: Date, to: Date) {
+  async cellsPerScan(siteId: number, source: string, from: Date, to: Date) {
     const rows = await this.handle.db.execute<{ time: string; cells: number }>(sql`
       select s.time as time, count(c.id)::int as cells
-      from ${scans} s left join ${cells} c on c.site_id = s.site_id and c.scan_time = s.time
-      where s.site_id = ${siteId} and s.time between ${from.toISOString()} and ${to.toISOString()}
+      from (select distinct time from ${scans} where site_id = ${siteId}
+            and time between ${from.toISOString()} and ${to.toISOString()}) s
+      left join ${cells} c on c.site_id = ${siteId} and c.scan_time = s.time and c.source = ${source}
       group by s.time order by s.time`);
     return rows.rows.map((r) => ({ time: new Date(r.time).getTime(), cells: Number(r.cells) }));
   }

@@ -11,11 +11,18 @@ import { RegionsRepository } from '../regions/regions.repository.js';
 import { BlockLocator } from './engine/block-locator.js';
 import { azimuthOf } from './engine/coverage.js';
 import { classifyStart } from './engine/starts.js';
-import { type NewCellRow, RadarDataRepository, type TrackFilter } from './radar-data.repository.js';
+import {
+  type NewCellRow,
+  RadarDataRepository,
+  type ScanSource,
+  type TrackFilter,
+} from './radar-data.repository.js';
+
+export type CellSource = 'volume' | 'column-max' | 'cell-table';
 
 export interface StoreBatch {
   siteId: number;
-  source: 'volume' | 'cell-table';
+  source: CellSource;
   uploadId: number | null;
   settingsVersion: number;
   cells: PreparedCell[];
@@ -35,8 +42,8 @@ export class RadarDataService {
     return this.data.transaction(work);
   }
 
-  insertScans(siteId: number, times: number[], uploadId: number | null, tx: Executor) {
-    return this.data.insertScans(siteId, times, uploadId, tx);
+  insertScans(siteId: number, source: ScanSource, times: number[], uploadId: number | null, tx: Executor) {
+    return this.data.insertScans(siteId, source, times, uploadId, tx);
   }
 
   async blockLocator(): Promise<BlockLocator> {
@@ -124,18 +131,19 @@ export class RadarDataService {
   }
 
   /**
-   * Re-tracks every volume-derived cell of the site in time order, so scans that arrive late or out of
+   * Re-tracks every cell the engine found in the site's scans of one kind in time order, so scans that arrive late or out of
    * order join the right tracks. Returns the new track ids.
    */
-  async retrackVolumes(
+  async retrackScans(
     siteId: number,
+    source: 'volume' | 'column-max',
     ctx: SiteContext,
     settingsVersion: number,
     locator: BlockLocator,
     tx: Executor,
   ) {
-    await this.data.deleteTracks(siteId, 'volume', tx);
-    const rows = await this.data.volumeCells(siteId, tx);
+    await this.data.deleteTracks(siteId, source, tx);
+    const rows = await this.data.cellsOf(siteId, source, tx);
     if (rows.length === 0) return [];
     const cells: PreparedCell[] = rows.map((r) => ({
       time: r.scanTime.getTime(),
@@ -158,7 +166,7 @@ export class RadarDataService {
     const ids = await this.data.insertTracks(
       tracks.map((t) => ({
         siteId,
-        source: 'volume',
+        source,
         settingsVersion,
         externalId: null,
         firstTime: new Date(t.firstTime),
@@ -197,10 +205,15 @@ export class RadarDataService {
     return ids;
   }
 
-  /** Re-decides every track's onset against the site's current scan inventory. */
-  async recomputeStarts(siteId: number, ctx: SiteContext, tx: Executor): Promise<void> {
-    const times = await this.data.siteScanTimes(siteId, tx);
-    const rows = await this.data.tracksForStarts(siteId, tx);
+  /**
+   * Re-decides the onsets of a source's tracks against the scans that source could have seen: a cell
+   * table is judged against the inventory and its own scan times, engine tracks against the scans of
+   * their own kind that are in (a scan never loaded is a gap in what the engine saw).
+   */
+  async recomputeStarts(siteId: number, source: CellSource, ctx: SiteContext, tx: Executor): Promise<void> {
+    const seen: ScanSource[] = source === 'cell-table' ? ['scan-inventory', 'cell-table'] : [source];
+    const times = await this.data.siteScanTimes(siteId, seen, tx);
+    const rows = await this.data.tracksForStarts(siteId, source, tx);
     const rules = {
       maxGapMs: ctx.settings.maxGapIntervals * ctx.intervalMs,
       edgeBandKm: ctx.settings.edgeBandKm,
@@ -225,16 +238,16 @@ export class RadarDataService {
     await this.data.updateStarts(changes, tx);
   }
 
-  siteScanTimes(siteId: number) {
-    return this.data.siteScanTimes(siteId);
+  siteScanTimes(siteId: number, sources?: ScanSource[]) {
+    return this.data.siteScanTimes(siteId, sources);
   }
 
   trackSummaries(ids: number[]) {
     return this.data.trackSummaries(ids);
   }
 
-  cellsPerScan(siteId: number, from: number, to: number) {
-    return this.data.cellsPerScan(siteId, new Date(from), new Date(to));
+  cellsPerScan(siteId: number, source: CellSource, from: number, to: number) {
+    return this.data.cellsPerScan(siteId, source, new Date(from), new Date(to));
   }
 
   listTracks(f: TrackFilter) {
