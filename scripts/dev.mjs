@@ -4,7 +4,9 @@ import { spawn } from 'node:child_process';
 const bin = (name) => new URL(`../node_modules/.bin/${name}`, import.meta.url).pathname;
 const children = [
   spawn(bin('tsc'), ['-p', 'shared/tsconfig.json', '--watch', '--preserveWatchOutput'], { stdio: 'inherit' }),
-  spawn(bin('tsc'), ['-p', 'server/tsconfig.build.json', '--watch', '--preserveWatchOutput'], { stdio: 'inherit' }),
+  spawn(bin('tsc'), ['-p', 'server/tsconfig.build.json', '--watch', '--preserveWatchOutput'], {
+    stdio: 'inherit',
+  }),
   spawn(process.execPath, ['--watch-path=server/dist', '--watch-path=shared/dist', 'server/dist/main.js'], {
     stdio: 'inherit',
   }),
