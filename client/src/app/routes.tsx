@@ -15,10 +15,19 @@ const AdminLayout = lazy(() => import('./routes/AdminLayout'));
 const BlocksPage = lazy(() => import('../features/admin/blocks/components/BlocksPage'));
 const PeoplePage = lazy(() => import('../features/admin/people/components/PeoplePage'));
 const AuditPage = lazy(() => import('../features/admin/audit/components/AuditPage'));
+const IntakeLayout = lazy(() => import('./routes/IntakeLayout'));
+const UploadsPage = lazy(() => import('../features/intake/uploads/components/UploadsPage'));
+const JobDetailPage = lazy(() => import('../features/intake/jobs/components/JobDetailPage'));
+const SitesPage = lazy(() => import('../features/intake/sites/components/SitesPage'));
+const SiteFormPage = lazy(() => import('../features/intake/sites/components/SiteFormPage'));
+const TracksPage = lazy(() => import('../features/intake/tracks/components/TracksPage'));
+const TrackDetailPage = lazy(() => import('../features/intake/tracks/components/TrackDetailPage'));
 
-const placeholderSections: Record<Exclude<Section, 'admin'>, LazyExoticComponent<ComponentType>> = {
+const placeholderSections: Record<
+  Exclude<Section, 'admin' | 'intake'>,
+  LazyExoticComponent<ComponentType>
+> = {
   atlas: lazy(() => import('./routes/AtlasPage')),
-  intake: lazy(() => import('./routes/IntakePage')),
   regimes: lazy(() => import('./routes/RegimesPage')),
   outlook: lazy(() => import('./routes/OutlookPage')),
   bulletins: lazy(() => import('./routes/BulletinsPage')),
@@ -52,6 +61,24 @@ export const routes: RouteObject[] = [
               ...Object.entries(placeholderSections).map(([section, Page]) =>
                 sectionRoute(section as Section, Page),
               ),
+              {
+                path: paths.section.intake,
+                element: (
+                  <RequireSection section="intake">
+                    <IntakeLayout />
+                  </RequireSection>
+                ),
+                children: [
+                  { index: true, element: <UploadsPage /> },
+                  { path: 'jobs/:jobId', element: <JobDetailPage /> },
+                  { path: 'sites', element: <SitesPage /> },
+                  { path: 'sites/new', element: <SiteFormPage /> },
+                  { path: 'sites/:siteId', element: <SiteFormPage /> },
+                  { path: 'tracks', element: <TracksPage /> },
+                  { path: 'tracks/:trackId', element: <TrackDetailPage /> },
+                  { path: '*', element: <NotFoundPage /> },
+                ],
+              },
               {
                 path: paths.section.admin,
                 element: (

@@ -1,12 +1,20 @@
-import { geoMercator, geoPath } from 'd3-geo';
+import { type GeoPermissibleObjects, geoMercator, geoPath } from 'd3-geo';
 import type { Feature, MultiPolygon, Polygon } from 'geojson';
-import { useMemo, useState } from 'react';
+import { type ReactNode, useMemo, useState } from 'react';
 import type { BlockFeatureCollection, BlockFeatureProperties } from '../lib/geo/blockFeatures';
 import { coloursForGroups } from '../lib/geo/groupColours';
 import { groupLabelPositions } from '../lib/geo/labelPositions';
 import { rewindForD3 } from '../lib/geo/rewind';
 
 type BlockFeature = Feature<Polygon | MultiPolygon, BlockFeatureProperties>;
+
+/** The map's own projection, handed to overlays so they line up with the blocks. */
+export interface MapProjector {
+  /** Screen position of a longitude/latitude, or null when it cannot be projected. */
+  point: (lon: number, lat: number) => [x: number, y: number] | null;
+  /** SVG path data of any GeoJSON object (rings wound as d3-geo expects). */
+  path: (object: GeoPermissibleObjects) => string;
+}
 
 export interface BlockMapProps {
   blocks: BlockFeatureCollection;
@@ -18,7 +26,16 @@ export interface BlockMapProps {
   describe?: (block: BlockFeatureProperties) => string | null;
   width?: number;
   height?: number;
+  /**
+   * GeoJSON the view must also fit besides the blocks, e.g. a radar coverage wider than the province.
+   * Rings wound as d3-geo expects (see rewindForD3); keep the array stable between renders.
+   */
+  fitAlso?: GeoPermissibleObjects[];
+  /** Drawn above the blocks in the same projection (coverage, a track's path, markers). */
+  overlay?: (projector: MapProjector) => ReactNode;
 }
+
+const NOTHING_MORE: GeoPermissibleObjects[] = [];
 
 interface DrawnBlock {
   key: number;
@@ -32,20 +49,26 @@ function useDrawing(
   width: number,
   height: number,
   fillOf?: BlockMapProps['fillOf'],
+  fitAlso: GeoPermissibleObjects[] = NOTHING_MORE,
 ) {
   return useMemo(() => {
     const features = blocks.features
       .filter((f): f is BlockFeature => f.geometry !== null)
       .map((f) => ({ ...f, geometry: rewindForD3(f.geometry) }));
-    const collection = { type: 'FeatureCollection' as const, features };
+    // Overlays that reach beyond the blocks (a coverage wider than the province) must stay in view.
+    const fitted = { type: 'FeatureCollection' as const, features: [...features, ...fitAlso.map(asFeature)] };
     const projection = geoMercator().fitExtent(
       [
         [8, 8],
         [width - 8, height - 8],
       ],
-      collection,
+      fitted,
     );
     const path = geoPath(projection);
+    const projector: MapProjector = {
+      point: (lon, lat) => projection([lon, lat]),
+      path: (object) => path(object) ?? '',
+    };
     const colours = coloursForGroups(features.map((f) => f.properties.districtCode));
     const drawn: DrawnBlock[] = features.map((f) => ({
       key: f.properties.id,
@@ -64,8 +87,15 @@ function useDrawing(
       colour,
       name: features.find((f) => f.properties.districtCode === code)?.properties.districtName ?? code,
     }));
-    return { drawn, labels, legend };
-  }, [blocks, width, height, fillOf]);
+    return { drawn, labels, legend, projector };
+  }, [blocks, width, height, fillOf, fitAlso]);
+}
+
+/** Wraps a bare geometry so it can sit in a FeatureCollection beside the blocks. */
+function asFeature(object: GeoPermissibleObjects): Feature {
+  const candidate = object as { type: string };
+  if (candidate.type === 'Feature') return object as Feature;
+  return { type: 'Feature', properties: {}, geometry: object as Feature['geometry'] };
 }
 
 function tooltipOf(block: BlockFeatureProperties, extra: string | null): string {
@@ -85,8 +115,10 @@ export function BlockMap({
   describe,
   width = 720,
   height = 480,
+  fitAlso,
+  overlay,
 }: BlockMapProps) {
-  const { drawn, labels, legend } = useDrawing(blocks, width, height, fillOf);
+  const { drawn, labels, legend, projector } = useDrawing(blocks, width, height, fillOf, fitAlso);
   const [activeId, setActiveId] = useState<number | null>(null);
   const active = drawn.find((b) => b.key === activeId)?.props ?? null;
 
@@ -121,6 +153,7 @@ export function BlockMap({
               {l.group}
             </text>
           ))}
+          {overlay ? <g className="block-map__overlay">{overlay(projector)}</g> : null}
         </svg>
         {fillOf ? null : (
           <ul className="map-legend" aria-label="Districts on the map">

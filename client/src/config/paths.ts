@@ -20,6 +20,15 @@ export const paths = {
     people: '/admin/people',
     audit: '/admin/audit',
   },
+  intake: {
+    uploads: '/intake',
+    sites: '/intake/sites',
+    newSite: '/intake/sites/new',
+    site: (id: number | string) => `/intake/sites/${id}`,
+    tracks: '/intake/tracks',
+    track: (id: number | string) => `/intake/tracks/${id}`,
+    job: (id: number | string) => `/intake/jobs/${id}`,
+  },
 } as const;
 
 /** Names shown in the navigation; the browser tests find links by these. */
@@ -50,4 +59,13 @@ export const api = {
   users: '/api/users',
   user: (id: number) => `/api/users/${id}`,
   audit: '/api/audit',
+  radarSites: '/api/radar-sites',
+  radarSite: (id: number) => `/api/radar-sites/${id}`,
+  radarSiteCoverage: (id: number) => `/api/radar-sites/${id}/coverage`,
+  intake: '/api/intake',
+  jobs: '/api/jobs',
+  job: (id: number) => `/api/jobs/${id}`,
+  tracks: '/api/tracks',
+  track: (id: number) => `/api/tracks/${id}`,
+  cells: '/api/cells',
 } as const;

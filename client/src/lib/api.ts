@@ -119,17 +119,14 @@ function sendWithProgress(path: string, form: FormData, onProgress: (fraction: n
 }
 
 /**
- * Uploads one file as multipart field `field`, reporting upload progress from 0 to 1.
+ * Posts a multipart form, reporting upload progress from 0 to 1 over the whole body.
  * XMLHttpRequest, because fetch cannot report upload progress.
  */
-export async function uploadFile<T>(
+export async function uploadForm<T>(
   path: string,
-  file: File,
+  form: FormData,
   onProgress: (fraction: number) => void,
-  field = 'file',
 ): Promise<T> {
-  const form = new FormData();
-  form.append(field, file);
   let result = await sendWithProgress(path, form, onProgress);
   if (result.status === 401) {
     const renewed = await refreshSession();
@@ -138,4 +135,16 @@ export async function uploadFile<T>(
   }
   if (result.status < 200 || result.status >= 300) throw apiErrorFrom(result.status, result.text);
   return (result.text ? JSON.parse(result.text) : undefined) as T;
+}
+
+/** Uploads one file as multipart field `field`, reporting upload progress from 0 to 1. */
+export function uploadFile<T>(
+  path: string,
+  file: File,
+  onProgress: (fraction: number) => void,
+  field = 'file',
+): Promise<T> {
+  const form = new FormData();
+  form.append(field, file);
+  return uploadForm<T>(path, form, onProgress);
 }

@@ -188,8 +188,24 @@ describe('radar intake of cell tables and inventories', () => {
       .send({ settings: { thresholdDbz: 40 } })
       .expect(200);
     expect(res.body).toMatchObject({ settingsVersion: 2, settings: { thresholdDbz: 40, minVolumeKm3: 15 } });
+    // A second change keeps the first: only the keys sent change.
+    const again = await t.http
+      .patch(`/api/radar-sites/${siteId}`)
+      .set(bearer())
+      .send({ settings: { minVolumeKm3: 20 } })
+      .expect(200);
+    expect(again.body).toMatchObject({
+      settingsVersion: 3,
+      settings: { thresholdDbz: 40, minVolumeKm3: 20 },
+    });
+    // Sending the same value again is no change and makes no version.
+    const same = await t.http
+      .patch(`/api/radar-sites/${siteId}`)
+      .set(bearer())
+      .send({ settings: { minVolumeKm3: 20 } });
+    expect(same.body.settingsVersion).toBe(3);
     const history = await t.http.get(`/api/radar-sites/${siteId}/settings`).set(bearer()).expect(200);
-    expect(history.body.map((h: { version: number }) => h.version)).toEqual([2, 1]);
+    expect(history.body.map((h: { version: number }) => h.version)).toEqual([3, 2, 1]);
     const bad = await t.http
       .patch(`/api/radar-sites/${siteId}`)
       .set(bearer())

@@ -54,7 +54,10 @@ export class SitesService {
     const current = await this.get(id);
     const { settings: changes, ...fields } = req;
     const merged = changes ? SiteSettings.parse({ ...current.settings, ...changes }) : current.settings;
-    const settingsChanged = JSON.stringify(merged) !== JSON.stringify(current.settings);
+    // Compare key by key: the stored copy comes back from jsonb with its keys reordered.
+    const settingsChanged = (Object.keys(merged) as (keyof SiteSettings)[]).some(
+      (k) => JSON.stringify(merged[k]) !== JSON.stringify(current.settings[k]),
+    );
     return this.sites.transaction(async (tx) => {
       if (Object.keys(fields).length) await this.sites.update(id, fields, tx);
       const version = settingsChanged ? current.settingsVersion + 1 : current.settingsVersion;

@@ -1,0 +1,129 @@
+import { CELL_TABLE_FIELDS, type CellTableField, CellTableMapping } from '@stormhour/shared';
+
+/** What each of our cell-table fields means, for the mapping step. */
+export const CELL_FIELD_LABELS: Record<CellTableField, string> = {
+  scan_time: 'Scan time',
+  track_id: 'Track id in the file',
+  lat: 'Latitude of the centroid (°)',
+  lon: 'Longitude of the centroid (°)',
+  x: 'x of the centroid (m)',
+  y: 'y of the centroid (m)',
+  area: 'Cell area, in the unit set below',
+  volume_km3: 'Volume (km³)',
+  max_dbz: 'Maximum reflectivity (dBZ)',
+  top35_km: '35 dBZ top (km)',
+  echo_top_km: 'Echo top (km)',
+  core40_km3: 'Volume ≥ 40 dBZ (km³)',
+  vil_max_kg_m2: 'Maximum VIL (kg m⁻²)',
+  parent_track_id: 'Parent track id (splits)',
+};
+
+/** Header spellings other tables commonly use for the same thing; compared after normalising. */
+const SYNONYMS: Record<CellTableField, string[]> = {
+  scan_time: ['time', 'datetime', 'date_time', 'timestamp', 'scan', 'scantime', 'obs_time', 'valid_time'],
+  track_id: ['track', 'trackid', 'track_no', 'storm_id', 'stormid'],
+  lat: ['latitude', 'lat_deg', 'centroid_lat', 'cent_lat'],
+  lon: ['longitude', 'long', 'lng', 'lon_deg', 'centroid_lon', 'cent_lon'],
+  x: ['x_m', 'easting', 'centroid_x'],
+  y: ['y_m', 'northing', 'centroid_y'],
+  area: ['area_km2', 'area_m2', 'area_sqkm', 'size', 'size_km2'],
+  volume_km3: ['volume', 'vol', 'vol_km3'],
+  max_dbz: ['maxdbz', 'dbz_max', 'zmax', 'max_z', 'max_reflectivity'],
+  top35_km: ['top35', 'top_35', 'top_35dbz', 'top35dbz'],
+  echo_top_km: ['echo_top', 'echotop', 'et_km', 'top_km'],
+  core40_km3: ['core40', 'core_km3', 'vol40', 'volume_40dbz'],
+  vil_max_kg_m2: ['vil_max', 'vil', 'maxvil', 'vil_kg_m2'],
+  parent_track_id: ['parent', 'parent_id', 'parent_track', 'split_from'],
+};
+
+/** "Area (km²)" and "area_km2" and "AREA-KM2" all read as "area_km2". */
+export function normaliseHeader(header: string): string {
+  return header
+    .trim()
+    .toLowerCase()
+    .replaceAll('²', '2')
+    .replace(/[^a-z0-9]+/g, '_')
+    .replace(/^_+|_+$/g, '');
+}
+
+export type ColumnChoice = Partial<Record<CellTableField, string>>;
+
+/** Pre-selects the file's column for each of our fields whose header matches the name or a synonym. */
+export function guessColumns(headers: readonly string[]): ColumnChoice {
+  const byNormal = new Map<string, string>();
+  for (const header of headers) {
+    const key = normaliseHeader(header);
+    if (!byNormal.has(key)) byNormal.set(key, header);
+  }
+  const used = new Set<string>();
+  const columns: ColumnChoice = {};
+  // Exact names first, so "area" is not claimed by a synonym of another field.
+  for (const pass of ['own', 'synonyms'] as const) {
+    for (const field of CELL_TABLE_FIELDS) {
+      if (columns[field]) continue;
+      const names = pass === 'own' ? [field] : SYNONYMS[field];
+      const header = names.map((n) => byNormal.get(n)).find((h) => h !== undefined && !used.has(h));
+      if (header) {
+        columns[field] = header;
+        used.add(header);
+      }
+    }
+  }
+  return columns;
+}
+
+export interface MappingDraft {
+  columns: ColumnChoice;
+  areaUnit: 'km2' | 'm2';
+  /** 'UTC' or '+06:00'. */
+  timeZone: string;
+  position: 'latlon' | 'xy';
+  crs: string;
+}
+
+/** A first draft from the headers: matched columns, and the unit and position kind they suggest. */
+export function draftFromHeaders(headers: readonly string[], timeZone: string): MappingDraft {
+  const columns = guessColumns(headers);
+  const area = columns.area ? normaliseHeader(columns.area) : '';
+  const areaUnit = /(^|_)m2$/.test(area) && !area.endsWith('km2') ? 'm2' : 'km2';
+  const position = !(columns.lat && columns.lon) && columns.x && columns.y ? 'xy' : 'latlon';
+  return { columns, areaUnit, timeZone, position, crs: '' };
+}
+
+/** Everything still missing before the file can be uploaded, in words; empty when ready. */
+export function mappingProblems(draft: MappingDraft): string[] {
+  const problems: string[] = [];
+  const missing = (field: CellTableField) => !draft.columns[field];
+  if (missing('scan_time')) problems.push('Choose the column with the scan time (scan_time).');
+  if (missing('area')) problems.push('Choose the column with the cell area (area).');
+  if (draft.position === 'latlon' && (missing('lat') || missing('lon'))) {
+    problems.push('Choose the columns with the latitude and longitude (lat and lon).');
+  }
+  if (draft.position === 'xy') {
+    if (missing('x') || missing('y'))
+      problems.push('Choose the columns with the x and y positions (x and y).');
+    if (draft.crs.trim() === '')
+      problems.push('Enter the coordinate system of x and y (an EPSG code or proj4 text).');
+  }
+  if (!/^(UTC|[+-]\d{2}:\d{2})$/.test(draft.timeZone)) {
+    problems.push('Write the time zone as UTC or an offset such as +06:00.');
+  }
+  return problems;
+}
+
+/** The mapping as sent in the `mapping` field; the other position kind's columns are left out. */
+export function toMapping(draft: MappingDraft): CellTableMapping {
+  const unused: CellTableField[] = draft.position === 'latlon' ? ['x', 'y'] : ['lat', 'lon'];
+  const columns = Object.fromEntries(
+    Object.entries(draft.columns).filter(
+      ([field, header]) => header && !unused.includes(field as CellTableField),
+    ),
+  );
+  return CellTableMapping.parse({
+    columns,
+    areaUnit: draft.areaUnit,
+    timeZone: draft.timeZone,
+    position: draft.position,
+    ...(draft.position === 'xy' ? { crs: draft.crs.trim() } : {}),
+  });
+}

@@ -1,0 +1,210 @@
+import {
+  Button,
+  InlineLoading,
+  InlineNotification,
+  RadioButton,
+  RadioButtonGroup,
+  Select,
+  SelectItem,
+  TextInput,
+} from '@carbon/react';
+import { INTAKE_KINDS, type IntakeKind, type SiteView } from '@stormhour/shared';
+import { useId, useState } from 'react';
+import { LoadError } from '../../../../components/LoadError';
+import { ApiError, messageOf } from '../../../../lib/apiError';
+import { useStartIntake } from '../../jobs/api';
+import { JobFollower } from '../../jobs/components/JobFollower';
+import { useSites } from '../../sites/api';
+import { offsetForMapping } from '../../siteTime';
+import { toMapping } from '../cellTableMapping';
+import {
+  buildIntakeForm,
+  fitsKind,
+  type IntakeDraft,
+  isGeoTiffKind,
+  KIND_LABELS,
+  type OnError,
+  uploadBlockers,
+} from '../intakeRequest';
+import { ColumnMappingStep } from './ColumnMappingStep';
+import { FilePicker } from './FilePicker';
+import { UploadProgress } from './UploadProgress';
+import { useCsvMapping } from './useCsvMapping';
+
+function SiteAndKind(props: {
+  sites: SiteView[];
+  siteId: number | null;
+  kind: IntakeKind;
+  disabled: boolean;
+  onSite: (id: number | null) => void;
+  onKind: (kind: IntakeKind) => void;
+}) {
+  return (
+    <div className="upload-form__row">
+      <Select
+        id="upload-site"
+        labelText="Radar site"
+        value={props.siteId === null ? '' : String(props.siteId)}
+        disabled={props.disabled}
+        onChange={(e) => props.onSite(e.target.value === '' ? null : Number(e.target.value))}
+      >
+        <SelectItem value="" text="Choose a site" />
+        {props.sites.map((s) => (
+          <SelectItem key={s.id} value={String(s.id)} text={`${s.code} — ${s.name}`} />
+        ))}
+      </Select>
+      <Select
+        id="upload-kind"
+        labelText="Kind of files"
+        value={props.kind}
+        disabled={props.disabled}
+        onChange={(e) => props.onKind(e.target.value as IntakeKind)}
+      >
+        {INTAKE_KINDS.map((k) => (
+          <SelectItem key={k} value={k} text={KIND_LABELS[k]} />
+        ))}
+      </Select>
+    </div>
+  );
+}
+
+/** Site, kind, files and options; for cell tables the column mapping; then upload and follow the job. */
+export function UploadForm() {
+  const sites = useSites();
+  const blockersId = useId();
+  const [chosenSite, setChosenSite] = useState<number | null>(null);
+  const [kind, setKind] = useState<IntakeKind>('volume');
+  const [files, setFiles] = useState<File[]>([]);
+  const [onError, setOnError] = useState<OnError>('skip');
+  const [timePattern, setTimePattern] = useState('');
+  const [fraction, setFraction] = useState(0);
+  const upload = useStartIntake(setFraction);
+
+  // With one site there is nothing to choose.
+  const siteId = chosenSite ?? (sites.data?.length === 1 ? sites.data[0].id : null);
+  const site = sites.data?.find((s) => s.id === siteId) ?? null;
+  const csvFile = kind === 'cell-table' ? (files.find((f) => fitsKind(f.name, kind)) ?? null) : null;
+  const mapping = useCsvMapping(csvFile);
+  const draft: IntakeDraft = {
+    siteId,
+    kind,
+    files,
+    onError,
+    timePattern,
+    mapping: mapping.draft && mapping.problems.length === 0 ? toMapping(mapping.draft) : null,
+  };
+  const blockers = uploadBlockers(draft, mapping.problems);
+  const busy = upload.isPending || upload.isSuccess;
+
+  if (sites.isPending) return <InlineLoading description="Loading the radar sites" />;
+  if (sites.isError) return <LoadError what="the radar sites" error={sites.error} onRetry={sites.refetch} />;
+
+  function start() {
+    setFraction(0);
+    upload.mutate(buildIntakeForm(draft));
+  }
+
+  function startAgain() {
+    upload.reset();
+    setFiles([]);
+    setFraction(0);
+  }
+
+  const details = upload.error instanceof ApiError ? upload.error.details : [];
+
+  return (
+    <div className="upload-form form-stack">
+      <SiteAndKind
+        sites={sites.data}
+        siteId={siteId}
+        kind={kind}
+        disabled={busy}
+        onSite={setChosenSite}
+        onKind={setKind}
+      />
+      <FilePicker kind={kind} files={files} disabled={busy} onChange={setFiles} />
+      <RadioButtonGroup
+        legendText="When a file cannot be read"
+        name="upload-on-error"
+        valueSelected={onError}
+        disabled={busy}
+        onChange={(value) => setOnError(value as OnError)}
+      >
+        <RadioButton id="on-error-skip" labelText="Skip the file and go on" value="skip" />
+        <RadioButton id="on-error-fail" labelText="Stop the job; store nothing" value="fail" />
+      </RadioButtonGroup>
+      {isGeoTiffKind(kind) ? (
+        <TextInput
+          id="upload-time-pattern"
+          labelText="File-name time pattern (optional)"
+          helperText="Only for files whose metadata lacks the scan time: write the name with YYYY MM DD hh mm ss where the time is, e.g. VSR_YYYYMMDD_hhmm.tif. Times are read as UTC."
+          value={timePattern}
+          disabled={busy}
+          onChange={(e) => setTimePattern(e.target.value)}
+        />
+      ) : null}
+      {csvFile && mapping.preview && mapping.draft ? (
+        <ColumnMappingStep
+          fileName={csvFile.name}
+          preview={mapping.preview}
+          draft={mapping.draft}
+          siteOffset={site ? offsetForMapping(site.utcOffsetMinutes) : null}
+          onChange={mapping.setDraft}
+        />
+      ) : null}
+
+      {blockers.length > 0 && !busy ? (
+        <div id={blockersId} className="upload-blockers">
+          <p>Before uploading:</p>
+          <ul aria-label="Before uploading">
+            {blockers.map((b) => (
+              <li key={b}>{b}</li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+      {upload.isError ? (
+        <>
+          <InlineNotification
+            kind="error"
+            lowContrast
+            hideCloseButton
+            title="The upload was refused; nothing was stored."
+            subtitle={messageOf(upload.error)}
+          />
+          {details.length > 0 ? (
+            <ul className="field-problems" aria-label="What the server refused">
+              {details.map((d) => (
+                <li key={`${d.where}-${d.problem}`}>
+                  <span className="mono">{d.where}</span>: {d.problem}
+                </li>
+              ))}
+            </ul>
+          ) : null}
+        </>
+      ) : null}
+
+      {upload.isSuccess ? (
+        <Button kind="tertiary" onClick={startAgain}>
+          Start another upload
+        </Button>
+      ) : (
+        <Button
+          onClick={start}
+          disabled={blockers.length > 0 || upload.isPending}
+          aria-describedby={blockers.length > 0 ? blockersId : undefined}
+        >
+          Upload
+        </Button>
+      )}
+      {upload.isPending || upload.isSuccess ? (
+        <UploadProgress
+          files={files}
+          fraction={upload.isSuccess ? 1 : fraction}
+          accepted={upload.isSuccess}
+        />
+      ) : null}
+      {upload.isSuccess ? <JobFollower jobId={upload.data.id} /> : null}
+    </div>
+  );
+}

@@ -1,0 +1,76 @@
+import type { CellTableMapping, IntakeKind } from '@stormhour/shared';
+
+export const KIND_LABELS: Record<IntakeKind, string> = {
+  volume: 'Volume scans (GeoTIFF)',
+  'column-max': 'Column-maximum fields (GeoTIFF)',
+  'cell-table': 'Cell table (CSV)',
+  'scan-inventory': 'Scan inventory (CSV)',
+};
+
+/** File-name endings each kind takes. */
+export const KIND_EXTENSIONS: Record<IntakeKind, string[]> = {
+  volume: ['.tif', '.tiff'],
+  'column-max': ['.tif', '.tiff'],
+  'cell-table': ['.csv', '.txt'],
+  'scan-inventory': ['.csv', '.txt'],
+};
+
+export function isGeoTiffKind(kind: IntakeKind): boolean {
+  return kind === 'volume' || kind === 'column-max';
+}
+
+export function fitsKind(fileName: string, kind: IntakeKind): boolean {
+  const lower = fileName.toLowerCase();
+  return KIND_EXTENSIONS[kind].some((ext) => lower.endsWith(ext));
+}
+
+export type OnError = 'skip' | 'fail';
+
+export interface IntakeDraft {
+  siteId: number | null;
+  kind: IntakeKind;
+  files: File[];
+  onError: OnError;
+  timePattern: string;
+  /** Cell tables only; null until the mapping step is complete. */
+  mapping: CellTableMapping | null;
+}
+
+/** The tokens a time pattern may use (IntakeRequest.timePattern). */
+const PATTERN_TOKENS = /YYYY|MM|DD|hh|mm|ss/;
+
+/** What stops the upload, in words; the Upload button stays off until this is empty. */
+export function uploadBlockers(draft: IntakeDraft, mappingProblems: readonly string[]): string[] {
+  const blockers: string[] = [];
+  if (draft.siteId === null) blockers.push('Choose the radar site the files come from.');
+  if (draft.files.length === 0) blockers.push('Add at least one file.');
+  const wrong = draft.files.filter((f) => !fitsKind(f.name, draft.kind));
+  if (wrong.length > 0) {
+    blockers.push(
+      `${wrong.map((f) => f.name).join(', ')} ${wrong.length === 1 ? 'does' : 'do'} not end in ${KIND_EXTENSIONS[draft.kind].join(' or ')}.`,
+    );
+  }
+  if (
+    isGeoTiffKind(draft.kind) &&
+    draft.timePattern.trim() !== '' &&
+    !PATTERN_TOKENS.test(draft.timePattern)
+  ) {
+    blockers.push('The file-name time pattern needs at least one of YYYY, MM, DD, hh, mm, ss.');
+  }
+  if (draft.kind === 'cell-table') blockers.push(...mappingProblems);
+  return blockers;
+}
+
+/** The multipart body of POST /api/intake: one `files[]` part per file, then the fields. */
+export function buildIntakeForm(draft: IntakeDraft): FormData {
+  const form = new FormData();
+  for (const file of draft.files) form.append('files[]', file, file.name);
+  form.append('siteId', String(draft.siteId));
+  form.append('kind', draft.kind);
+  form.append('onError', draft.onError);
+  if (draft.kind === 'cell-table' && draft.mapping) form.append('mapping', JSON.stringify(draft.mapping));
+  if (isGeoTiffKind(draft.kind) && draft.timePattern.trim() !== '') {
+    form.append('timePattern', draft.timePattern.trim());
+  }
+  return form;
+}
