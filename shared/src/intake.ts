@@ -22,6 +22,48 @@ export const CELL_TABLE_FIELDS = [
 ] as const;
 export type CellTableField = (typeof CELL_TABLE_FIELDS)[number];
 
+/**
+ * Header spellings tables commonly use for each field (compared lower-case, with runs of other
+ * characters read as "_"), so a file's columns can be matched without the user's help.
+ */
+export const CELL_TABLE_SYNONYMS: Record<CellTableField, string[]> = {
+  scan_time: [
+    'scan_time_utc',
+    'time_utc',
+    'time',
+    'datetime',
+    'date_time',
+    'timestamp',
+    'scan',
+    'scantime',
+    'obs_time',
+    'valid_time',
+  ],
+  track_id: ['track', 'trackid', 'track_no', 'storm_id', 'stormid'],
+  lat: ['latitude', 'lat_deg', 'centroid_lat', 'cent_lat'],
+  lon: ['longitude', 'long', 'lng', 'lon_deg', 'centroid_lon', 'cent_lon'],
+  x: ['x_m', 'easting', 'centroid_x'],
+  y: ['y_m', 'northing', 'centroid_y'],
+  area: ['area_km2', 'area_m2', 'area_sqkm', 'size', 'size_km2'],
+  volume_km3: ['volume', 'vol', 'vol_km3'],
+  max_dbz: ['maxdbz', 'dbz_max', 'zmax', 'max_z', 'max_reflectivity'],
+  top35_km: ['top35', 'top_35', 'top_35dbz', 'top35dbz'],
+  echo_top_km: ['echo_top', 'echotop', 'et_km', 'top_km'],
+  core40_km3: ['core40', 'core_km3', 'vol40', 'volume_40dbz'],
+  vil_max_kg_m2: ['vil_max', 'vil', 'maxvil', 'vil_kg_m2'],
+  parent_track_id: ['parent', 'parent_id', 'parent_track', 'split_from'],
+};
+
+/** "Area (km²)", "area_km2" and "AREA-KM2" all read as "area_km2". */
+export function normaliseHeader(header: string): string {
+  return header
+    .trim()
+    .toLowerCase()
+    .replaceAll('²', '2')
+    .replace(/[^a-z0-9]+/g, '_')
+    .replace(/^_+|_+$/g, '');
+}
+
 /** Fields a cell table must have: a time, a position (lat/lon or x/y) and an area. */
 export const REQUIRED_CELL_TABLE_FIELDS = ['scan_time', 'area'] as const;
 

@@ -41,7 +41,9 @@ export async function openBrowser(): Promise<Browser> {
   };
 }
 
+/** Signs in afresh: any earlier session's refresh cookie is dropped first. */
 export async function signIn(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
+  await page.context().clearCookies();
   await page.goto(`${baseUrl()}/sign-in`);
   await page.getByLabel('Email').fill(email);
   await page.getByLabel('Password', { exact: true }).fill(password);

@@ -76,6 +76,7 @@ describe('each demo role sees only its sections', () => {
 
   it('tells a user with a wrong password what went wrong, without saying which part', async () => {
     const { page } = browser;
+    await page.context().clearCookies();
     await page.goto(`${baseUrl()}/sign-in`);
     await page.getByLabel('Email').fill('admin@vessary.example');
     await page.getByLabel('Password', { exact: true }).fill('not-the-password');

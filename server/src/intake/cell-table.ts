@@ -1,4 +1,10 @@
-import type { CellTableField, CellTableMapping } from '@stormhour/shared';
+import {
+  CELL_TABLE_FIELDS,
+  CELL_TABLE_SYNONYMS,
+  type CellTableField,
+  type CellTableMapping,
+  normaliseHeader,
+} from '@stormhour/shared';
 import Papa from 'papaparse';
 import { parseTime } from './times.js';
 
@@ -25,30 +31,13 @@ export interface TableProblem {
   problem: string;
 }
 
-/** Header names we recognise for each of our fields when the user gives no mapping. */
-const SYNONYMS: Record<CellTableField, string[]> = {
-  scan_time: ['scan_time_utc', 'scan_time', 'time_utc', 'time', 'datetime'],
-  track_id: ['track_id', 'track', 'storm_id'],
-  lat: ['lat', 'latitude'],
-  lon: ['lon', 'lng', 'longitude'],
-  x: ['x', 'x_m', 'easting'],
-  y: ['y', 'y_m', 'northing'],
-  area: ['area_km2', 'area'],
-  volume_km3: ['volume_km3', 'volume'],
-  max_dbz: ['max_dbz', 'maxdbz', 'zmax'],
-  top35_km: ['top35_km', 'top35'],
-  echo_top_km: ['echo_top_km', 'echotop_km', 'echo_top'],
-  core40_km3: ['core40_km3', 'core40'],
-  vil_max_kg_m2: ['vil_max_kg_m2', 'vil_max', 'vil'],
-  parent_track_id: ['parent_track_id', 'parent_id', 'parent'],
-};
-
+/** Matches a file's headers to our fields: our own names first, then common spellings. */
 export function guessMapping(headers: string[]): CellTableMapping['columns'] {
-  const lower = new Map(headers.map((h) => [h.trim().toLowerCase(), h]));
+  const byNormal = new Map(headers.map((h) => [normaliseHeader(h), h]));
   const columns: CellTableMapping['columns'] = {};
-  for (const [field, names] of Object.entries(SYNONYMS) as [CellTableField, string[]][]) {
-    const hit = names.find((n) => lower.has(n));
-    if (hit) columns[field] = lower.get(hit);
+  for (const field of CELL_TABLE_FIELDS) {
+    const hit = [field, ...CELL_TABLE_SYNONYMS[field]].find((n) => byNormal.has(n));
+    if (hit) columns[field] = byNormal.get(hit);
   }
   return columns;
 }
@@ -219,7 +208,7 @@ export function parseScanInventory(
   const parsed = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: 'greedy' });
   const headers = parsed.meta.fields ?? [];
   const column =
-    headers.find((h) => SYNONYMS.scan_time.includes(h.trim().toLowerCase())) ??
+    headers.find((h) => ['scan_time', ...CELL_TABLE_SYNONYMS.scan_time].includes(normaliseHeader(h))) ??
     (headers.length === 1 ? headers[0] : undefined);
   if (!column)
     return {

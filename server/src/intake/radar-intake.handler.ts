@@ -1,5 +1,11 @@
 import { Inject, Injectable } from '@nestjs/common';
-import type { CellTableMapping, IntakeKind, SiteSettings, SiteView } from '@stormhour/shared';
+import {
+  type CellTableMapping,
+  type IntakeKind,
+  normaliseHeader,
+  type SiteSettings,
+  type SiteView,
+} from '@stormhour/shared';
 import proj4 from 'proj4';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import type { JobFile, JobProblem } from '../jobs/job-problem.js';
@@ -163,8 +169,13 @@ export class RadarIntakeHandler {
     // Seasons hold tens of thousands of times: no spread into Math.min.
     const from = fileTimes.reduce((a, t) => Math.min(a, t), Infinity);
     const to = fileTimes.reduce((a, t) => Math.max(a, t), -Infinity);
+    // Availability is a share of whole local days, so the report looks at every day the files touch.
+    const dayMs = 86_400_000;
+    const offsetMs = site.utcOffsetMinutes * 60_000;
+    const dayStart = Math.floor((from + offsetMs) / dayMs) * dayMs - offsetMs;
+    const dayEnd = Math.floor((to + offsetMs) / dayMs) * dayMs - offsetMs + dayMs - 1;
     const allScans = await this.radar.siteScanTimes(p.siteId);
-    const span = allScans.filter((t) => t >= from && t <= to);
+    const span = allScans.filter((t) => t >= dayStart && t <= dayEnd);
     const report = buildReport({
       filesRead: [...parsed.keys()].length,
       filesSkipped: files.filter((f) => f.state === 'skipped').length,
@@ -262,9 +273,17 @@ export class RadarIntakeHandler {
   ): Parsed {
     const mapping = p.mapping as CellTableMapping;
     const text = content.toString('utf8');
-    const columns = Object.keys(mapping.columns).length ? mapping.columns : guessFromHeader(text);
+    const given = Object.keys(mapping.columns).length > 0;
+    const columns = given ? mapping.columns : guessFromHeader(text);
+    // Unmapped files name their own unit: an "area_m2" column is in m².
+    const areaUnit =
+      !given && columns.area && normaliseHeader(columns.area).endsWith('_m2') ? 'm2' : mapping.areaUnit;
     const xyToLonLat = mapping.position === 'xy' && mapping.crs ? xyConverter(mapping.crs) : undefined;
-    const { rows, problems } = parseCellTable(text, { ...mapping, columns }, { latestTime, xyToLonLat });
+    const { rows, problems } = parseCellTable(
+      text,
+      { ...mapping, columns, areaUnit },
+      { latestTime, xyToLonLat },
+    );
     if (problems.length) throw tableProblem(problems);
     const all = rows.map((r) => toPrepared(r, site));
     const { inside, outside } = withinCoverage(all, site.coverage);

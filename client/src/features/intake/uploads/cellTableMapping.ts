@@ -1,4 +1,10 @@
-import { CELL_TABLE_FIELDS, type CellTableField, CellTableMapping } from '@stormhour/shared';
+import {
+  CELL_TABLE_FIELDS,
+  type CellTableField,
+  CellTableMapping,
+  normaliseHeader,
+  CELL_TABLE_SYNONYMS as SYNONYMS,
+} from '@stormhour/shared';
 
 /** What each of our cell-table fields means, for the mapping step. */
 export const CELL_FIELD_LABELS: Record<CellTableField, string> = {
@@ -18,33 +24,7 @@ export const CELL_FIELD_LABELS: Record<CellTableField, string> = {
   parent_track_id: 'Parent track id (splits)',
 };
 
-/** Header spellings other tables commonly use for the same thing; compared after normalising. */
-const SYNONYMS: Record<CellTableField, string[]> = {
-  scan_time: ['time', 'datetime', 'date_time', 'timestamp', 'scan', 'scantime', 'obs_time', 'valid_time'],
-  track_id: ['track', 'trackid', 'track_no', 'storm_id', 'stormid'],
-  lat: ['latitude', 'lat_deg', 'centroid_lat', 'cent_lat'],
-  lon: ['longitude', 'long', 'lng', 'lon_deg', 'centroid_lon', 'cent_lon'],
-  x: ['x_m', 'easting', 'centroid_x'],
-  y: ['y_m', 'northing', 'centroid_y'],
-  area: ['area_km2', 'area_m2', 'area_sqkm', 'size', 'size_km2'],
-  volume_km3: ['volume', 'vol', 'vol_km3'],
-  max_dbz: ['maxdbz', 'dbz_max', 'zmax', 'max_z', 'max_reflectivity'],
-  top35_km: ['top35', 'top_35', 'top_35dbz', 'top35dbz'],
-  echo_top_km: ['echo_top', 'echotop', 'et_km', 'top_km'],
-  core40_km3: ['core40', 'core_km3', 'vol40', 'volume_40dbz'],
-  vil_max_kg_m2: ['vil_max', 'vil', 'maxvil', 'vil_kg_m2'],
-  parent_track_id: ['parent', 'parent_id', 'parent_track', 'split_from'],
-};
-
-/** "Area (km²)" and "area_km2" and "AREA-KM2" all read as "area_km2". */
-export function normaliseHeader(header: string): string {
-  return header
-    .trim()
-    .toLowerCase()
-    .replaceAll('²', '2')
-    .replace(/[^a-z0-9]+/g, '_')
-    .replace(/^_+|_+$/g, '');
-}
+export { normaliseHeader };
 
 export type ColumnChoice = Partial<Record<CellTableField, string>>;
 
