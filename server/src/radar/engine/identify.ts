@@ -1,7 +1,7 @@
 import { equivalentEllipse } from './ellipse.js';
 import { layerThicknessesM, type PlacedGrid } from './grid.js';
 import { labelGrid } from './label.js';
-import { dbzToZ, rainRate, vilColumn, type ZR } from './reflectivity.js';
+import { dbzToZ, rainRate, vilLayer, type ZR } from './reflectivity.js';
 
 export interface IdentifySettings {
   thresholdDbz: number;
@@ -97,11 +97,25 @@ export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_ID
 
   const plane = nx * ny;
   const stamp = new Int32Array(plane).fill(-1);
-  const column = new Float64Array(nz);
   const cells: IdentifiedCell[] = [];
   let rejectedTooSmall = 0;
 
+  // Size first, from the runs alone: most regions are speckle and are dropped without reading a value.
+  const size = new Float64Array(components);
+  for (let i = 0; i < runs.count; i++) {
+    const rowBase = runs.y[i] * nx;
+    const thickness = is3d ? thicknessKm[runs.z[i]] : 1;
+    let area = 0;
+    for (let x = runs.x0[i]; x < runs.x1[i]; x++) area += grid.areaKm2[rowBase + x];
+    size[runs.label[i]] += area * thickness;
+  }
+
   for (let c = 0; c < components; c++) {
+    // 2-D runs never share a column, so their summed area is the footprint.
+    if (size[c] < (is3d ? s.minVolumeKm3 : s.minAreaKm2)) {
+      rejectedTooSmall++;
+      continue;
+    }
     let volume = 0;
     let core = 0;
     let wz = 0;
@@ -138,19 +152,20 @@ export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_ID
     }
     let area = 0;
     for (const col of cols) area += grid.areaKm2[col];
-    if (is3d ? volume < s.minVolumeKm3 : area < s.minAreaKm2) {
-      rejectedTooSmall++;
-      continue;
-    }
 
-    let echoTopLevel = -1;
-    let vilMax = 0;
-    let vilMass = 0;
+    // Columns in memory order, then one pass per level: the reads run along rows, not down the
+    // 40 levels of a column that lie a whole plane apart.
+    const columns = Int32Array.from(cols).sort();
+    const n = columns.length;
+    const topLevel = new Int32Array(n).fill(-1);
+    const below = new Float64Array(n);
+    const vil = new Float64Array(n);
     let rainMax = 0;
     let flux = 0;
-    const xs = new Float64Array(cols.length);
-    const ys = new Float64Array(cols.length);
-    cols.forEach((col, i) => {
+    const xs = new Float64Array(n);
+    const ys = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const col = columns[i];
       xs[i] = grid.xKm[col];
       ys[i] = grid.yKm[col];
       const lowest = data[col];
@@ -159,16 +174,28 @@ export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_ID
         if (r > rainMax) rainMax = r;
         flux += (r / 3.6e6) * grid.areaKm2[col] * 1e6;
       }
-      if (!is3d) return;
+    }
+    if (is3d) {
       for (let z = 0; z < nz; z++) {
-        const v = data[z * plane + col];
-        column[z] = v === nodata ? Number.NaN : v;
-        if (column[z] >= s.echoTopDbz && z > echoTopLevel) echoTopLevel = z;
+        const base = z * plane;
+        const dh = z > 0 ? grid.levelHeightsM[z] - grid.levelHeightsM[z - 1] : 0;
+        for (let i = 0; i < n; i++) {
+          const raw = data[base + columns[i]];
+          const v = raw === nodata ? Number.NaN : raw;
+          if (v >= s.echoTopDbz) topLevel[i] = z;
+          if (z > 0) vil[i] += vilLayer(below[i], v, dh, s.vilCapDbz);
+          below[i] = v;
+        }
       }
-      const vil = vilColumn(column, grid.levelHeightsM, s.vilCapDbz);
-      if (vil > vilMax) vilMax = vil;
-      vilMass += vil * grid.areaKm2[col] * 1e6;
-    });
+    }
+    let echoTopLevel = -1;
+    let vilMax = 0;
+    let vilMass = 0;
+    for (let i = 0; i < n; i++) {
+      if (topLevel[i] > echoTopLevel) echoTopLevel = topLevel[i];
+      if (vil[i] > vilMax) vilMax = vil[i];
+      vilMass += vil[i] * grid.areaKm2[columns[i]] * 1e6;
+    }
     const ellipse = equivalentEllipse(xs, ys);
     const cx = wx / wz;
     const cy = wy / wz;
@@ -196,7 +223,7 @@ export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_ID
       semiMinorKm: ellipse.semiMinor,
       orientationDeg: ellipse.orientationFromNorth,
       type: typeHeight === null ? null : cellType(typeHeight, s.typeEdgesKm),
-      columns: Int32Array.from(cols),
+      columns,
     });
   }
   return { cells, rejectedTooSmall };

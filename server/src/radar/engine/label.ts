@@ -125,23 +125,27 @@ export function labelGrid(
   const rx1 = new GrowableInt32();
   // rowStart[r]..rowStart[r+1] are the runs of row r = z·ny + y.
   const rowStart = new Int32Array(nz * ny + 1);
-  const hasNodata = nodata !== undefined && !Number.isNaN(nodata);
+  // A nodata value below the threshold (the usual −9999, or NaN) can never pass: ignore it.
+  const hasNodata = nodata !== undefined && nodata >= threshold;
 
   for (let z = 0, row = 0; z < nz; z++) {
     for (let y = 0; y < ny; y++, row++) {
       rowStart[row] = rz.length;
       const base = row * nx;
-      let x = 0;
-      while (x < nx) {
-        // Skip the (usual) quiet part fast.
-        while (x < nx && !(data[base + x] >= threshold && !(hasNodata && data[base + x] === nodata))) x++;
-        if (x === nx) break;
-        const start = x;
-        while (x < nx && data[base + x] >= threshold && !(hasNodata && data[base + x] === nodata)) x++;
+      const end = base + nx;
+      let i = base;
+      while (i < end) {
+        // Skip the (usual) quiet part fast; NaN fails every comparison, so it is quiet too.
+        if (hasNodata) while (i < end && !(data[i] >= threshold && data[i] !== nodata)) i++;
+        else while (i < end && !(data[i] >= threshold)) i++;
+        if (i === end) break;
+        const start = i;
+        if (hasNodata) while (i < end && data[i] >= threshold && data[i] !== nodata) i++;
+        else while (i < end && data[i] >= threshold) i++;
         rz.push(z);
         ry.push(y);
-        rx0.push(start);
-        rx1.push(x);
+        rx0.push(start - base);
+        rx1.push(i - base);
       }
     }
   }

@@ -79,3 +79,24 @@ describe('VIL (Greene & Clark 1972)', () => {
     expect(vilColumn([Number.NaN, 35, 35, Number.NaN], [0, 1000, 2000, 3000])).toBeCloseTo(0.344, 12);
   });
 });
+
+describe('the fast VIL path agrees with the formula evaluated directly', () => {
+  it.each([
+    [
+      [50, 50, 45, 40, 30],
+      [1000, 2000, 3000, 4000, 5000],
+    ],
+    [
+      [-10, 12.3, 47.77, 60, 20.5, -31],
+      [500, 1250, 2100, 3000, 4500, 7000],
+    ],
+  ])('column %j', (dbz, heights) => {
+    // Greene & Clark (1972) term by term with Math.pow, the 56 dBZ cap applied.
+    let direct = 0;
+    for (let k = 0; k + 1 < dbz.length; k++) {
+      const z = (10 ** (Math.min(dbz[k], 56) / 10) + 10 ** (Math.min(dbz[k + 1], 56) / 10)) / 2;
+      direct += 3.44e-6 * z ** (4 / 7) * (heights[k + 1] - heights[k]);
+    }
+    expect(vilColumn(dbz, heights) / direct).toBeCloseTo(1, 7);
+  });
+});
