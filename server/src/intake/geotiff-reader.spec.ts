@@ -1,10 +1,11 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { deflateSync } from 'node:zlib';
 import { fromArrayBuffer } from 'geotiff';
 import { describe, expect, it } from 'vitest';
 import { sitePlane } from '../radar/engine/site-plane.js';
-import { fillBand, hideTags, TAG } from '../testing/tiff-surgery.js';
+import { deflateStrip, fillBand, hideTags, TAG } from '../testing/tiff-surgery.js';
 import { crsFromGeoKeys, readReflectivityTiff } from './geotiff-reader.js';
 
 const demo = fileURLToPath(new URL('../../../sample-data/vessary/', import.meta.url));
@@ -38,6 +39,15 @@ describe('readReflectivityTiff', () => {
       if (v === 255) expect(grid.data[3 * plane2 + i]).toBeNaN();
       else expect(grid.data[3 * plane2 + i]).toBeCloseTo(v * 0.5 - 32, 6);
     }
+  });
+
+  it('reads a DEFLATE-compressed copy to the same values (zlib decoder)', async () => {
+    const plain = await read(volume);
+    const packed = deflateStrip(volume, (b) => deflateSync(b));
+    // The compressed strip is appended (the old one stays behind, unreferenced): it is much smaller.
+    expect(packed.length - volume.length).toBeLessThan(volume.length / 5);
+    const unpacked = await read(packed);
+    expect(unpacked.grid.data).toEqual(plain.grid.data);
   });
 
   it('places the centre pixel on the radar (its own azimuthal equidistant grid)', async () => {

@@ -2,7 +2,9 @@ import { fromArrayBuffer, type GeoTIFFImage } from 'geotiff';
 import proj4 from 'proj4';
 import type { PlacedGrid } from '../radar/engine/grid.js';
 import type { SitePlane } from '../radar/engine/site-plane.js';
+import { readBands } from './tiff-bands.js';
 import { parseTime, timeFromFileName } from './times.js';
+import './zlib-decoder.js';
 
 /** A problem that names where in the file it is (a band, a key); the file is refused whole. */
 export class FileProblem extends Error {
@@ -175,25 +177,19 @@ export async function readReflectivityTiff(content: Buffer, opts: ReadOptions): 
   if (time > opts.latestTime)
     throw new FileProblem('metadata SCAN_TIME_UTC', `${new Date(time).toISOString()} is in the future`);
 
-  const nodata = image.getGDALNoData();
-  const rasters = (await image.readRasters({ interleave: false })) as unknown as ArrayLike<number>[];
-  const plane = nx * ny;
-  const data = new Float32Array(plane * bands);
+  const scale: number[] = [];
+  const offset: number[] = [];
   for (let b = 0; b < bands; b++) {
     const meta = (await image.getGDALMetadata(b)) ?? {};
-    const scale = Number(meta.SCALE ?? fileMeta.SCALE ?? 1);
-    const offset = Number(meta.OFFSET ?? fileMeta.OFFSET ?? 0);
-    const band = rasters[b];
-    let valid = 0;
-    for (let i = 0; i < plane; i++) {
-      const raw = band[i];
-      if (raw === nodata || Number.isNaN(raw)) data[b * plane + i] = Number.NaN;
-      else {
-        data[b * plane + i] = raw * scale + offset;
-        valid++;
-      }
-    }
-    if (valid === 0) throw new FileProblem(`band ${b + 1}`, 'has no data: every value is nodata');
+    scale.push(Number(meta.SCALE ?? fileMeta.SCALE ?? 1));
+    offset.push(Number(meta.OFFSET ?? fileMeta.OFFSET ?? 0));
+  }
+  const data = await readBands(image, { scale, offset, nodata: image.getGDALNoData() });
+  const plane = nx * ny;
+  for (let b = 0; b < bands; b++) {
+    let valid = false;
+    for (let i = b * plane; i < (b + 1) * plane && !valid; i++) valid = !Number.isNaN(data[i]);
+    if (!valid) throw new FileProblem(`band ${b + 1}`, 'has no data: every value is nodata');
   }
 
   const toSite = sameAsPlane(crs, opts.plane) ? null : proj4(crs, 'EPSG:4326');
