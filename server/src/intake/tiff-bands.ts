@@ -128,7 +128,7 @@ export async function readBands(image: GeoTIFFImage, s: BandScaling): Promise<Fl
             let dst = target + y * nx + x0;
             for (let c = 0; c < width; c++, src += step, dst++) {
               const v = block[src];
-              out[dst] = v === nodata || v !== v ? Number.NaN : v * scale + offset;
+              out[dst] = v === nodata || Number.isNaN(v) ? Number.NaN : v * scale + offset;
             }
           }
         }

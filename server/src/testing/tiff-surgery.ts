@@ -176,7 +176,10 @@ export function littleEndianFloatTiff(
       );
     else {
       const b = Buffer.alloc(vals.length * size);
-      vals.forEach((x, i) => (size === 2 ? b.writeUInt16LE(x, 2 * i) : b.writeUInt32LE(x, 4 * i)));
+      for (const [i, x] of vals.entries()) {
+        if (size === 2) b.writeUInt16LE(x, 2 * i);
+        else b.writeUInt32LE(x, 4 * i);
+      }
       ifd.writeUInt32LE(extraAt, at + 8);
       extraAt += b.length;
       extras.push(b);
