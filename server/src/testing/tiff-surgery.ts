@@ -170,11 +170,12 @@ export function littleEndianFloatTiff(
     ifd.writeUInt32LE(v.length, at + 4);
     const size = type === 3 ? 2 : 4;
     const vals = tag === 273 ? [dataAt] : v;
-    if (vals.length * size <= 4)
-      vals.forEach((x, i) =>
-        size === 2 ? ifd.writeUInt16LE(x, at + 8 + 2 * i) : ifd.writeUInt32LE(x, at + 8),
-      );
-    else {
+    if (vals.length * size <= 4) {
+      for (const [i, x] of vals.entries()) {
+        if (size === 2) ifd.writeUInt16LE(x, at + 8 + 2 * i);
+        else ifd.writeUInt32LE(x, at + 8);
+      }
+    } else {
       const b = Buffer.alloc(vals.length * size);
       for (const [i, x] of vals.entries()) {
         if (size === 2) b.writeUInt16LE(x, 2 * i);
