@@ -54,38 +54,12 @@ export class RadarDataService {
   /** Writes a batch's tracks and cells (inside the caller's transaction); returns the new track ids. */
   async store(batch: StoreBatch, locator: BlockLocator, tx: Executor): Promise<number[]> {
     const blockOf = batch.cells.map((c) => locator.locate(c.lon, c.lat));
-    const trackIds = await this.data.insertTracks(
-      batch.tracks.map((t) => ({
-        siteId: batch.siteId,
-        source: batch.source,
-        settingsVersion: batch.settingsVersion,
-        externalId: t.externalId,
-        firstTime: new Date(t.firstTime),
-        lastTime: new Date(t.lastTime),
-        scanCount: t.scanCount,
-        durationMin: t.durationMin,
-        speedMs: t.speedMs,
-        directionToDeg: t.directionToDeg,
-        isStorm: t.isStorm,
-        // Decided by recomputeStarts once the batch is in, against the whole inventory.
-        onset: false,
-        notOnsetReason: null,
-        startLat: t.startLat,
-        startLon: t.startLon,
-        startBlockId: blockOf[t.cells[0]],
-        maxVolumeKm3: t.maxVolumeKm3,
-        maxAreaKm2: t.maxAreaKm2,
-        maxEchoTopKm: t.maxEchoTopKm,
-        cellType: t.cellType,
-      })),
-      tx,
-    );
-    await this.data.linkTracks(
-      batch.tracks.map((t, k) => ({
-        id: trackIds[k],
-        parent: t.parent === null ? null : trackIds[t.parent],
-        mergedInto: t.mergedInto === null ? null : trackIds[t.mergedInto],
-      })),
+    const trackIds = await this.insertTracks(
+      batch.siteId,
+      batch.source,
+      batch.settingsVersion,
+      batch.tracks,
+      (t) => blockOf[t.cells[0]],
       tx,
     );
     const trackOfCell = new Map<number, number>();
@@ -163,12 +137,38 @@ export class RadarDataService {
       parentExternalTrackId: null,
     }));
     const tracks = tracksByEngine(cells, ctx);
+    const ids = await this.insertTracks(
+      siteId,
+      source,
+      settingsVersion,
+      tracks,
+      (t) => locator.locate(t.startLon, t.startLat),
+      tx,
+    );
+    for (const [k, t] of tracks.entries())
+      await this.data.setCellTrack(
+        t.cells.map((i) => rows[i].id),
+        ids[k],
+        tx,
+      );
+    return ids;
+  }
+
+  /** Inserts tracks, then links splits and mergers once every track has its id. */
+  private async insertTracks(
+    siteId: number,
+    source: CellSource,
+    settingsVersion: number,
+    tracks: PreparedTrack[],
+    startBlock: (t: PreparedTrack) => number | null,
+    tx: Executor,
+  ): Promise<number[]> {
     const ids = await this.data.insertTracks(
       tracks.map((t) => ({
         siteId,
         source,
         settingsVersion,
-        externalId: null,
+        externalId: t.externalId,
         firstTime: new Date(t.firstTime),
         lastTime: new Date(t.lastTime),
         scanCount: t.scanCount,
@@ -176,11 +176,12 @@ export class RadarDataService {
         speedMs: t.speedMs,
         directionToDeg: t.directionToDeg,
         isStorm: t.isStorm,
+        // Decided by recomputeStarts once the batch is in, against the whole inventory.
         onset: false,
         notOnsetReason: null,
         startLat: t.startLat,
         startLon: t.startLon,
-        startBlockId: locator.locate(t.startLon, t.startLat),
+        startBlockId: startBlock(t),
         maxVolumeKm3: t.maxVolumeKm3,
         maxAreaKm2: t.maxAreaKm2,
         maxEchoTopKm: t.maxEchoTopKm,
@@ -196,12 +197,6 @@ export class RadarDataService {
       })),
       tx,
     );
-    for (const [k, t] of tracks.entries())
-      await this.data.setCellTrack(
-        t.cells.map((i) => rows[i].id),
-        ids[k],
-        tx,
-      );
     return ids;
   }
 
