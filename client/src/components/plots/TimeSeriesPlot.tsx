@@ -1,8 +1,9 @@
 import { extent, max, min } from 'd3-array';
 import { scaleLinear, scaleUtc } from 'd3-scale';
 import { line } from 'd3-shape';
-import { useId, useMemo } from 'react';
-import { innerSize, MARGIN } from './plotFrame';
+import { useMemo } from 'react';
+import { PlotAxes, PlotFigure, ValueGrid } from './PlotFigure';
+import { innerSize } from './plotFrame';
 
 export interface TimePoint {
   time: string;
@@ -34,7 +35,6 @@ export function TimeSeriesPlot({
   width = 480,
   height = 220,
 }: TimeSeriesPlotProps) {
-  const summaryId = useId();
   const { w, h } = innerSize({ width, height });
   const drawing = useMemo(() => {
     const dated = points.map((p) => ({ at: new Date(p.time), value: p.value }));
@@ -56,44 +56,23 @@ export function TimeSeriesPlot({
   const { dated, x, y, d } = drawing;
 
   return (
-    <figure className="plot">
-      <svg role="img" aria-label={label} aria-describedby={summaryId} viewBox={`0 0 ${width} ${height}`}>
-        <g transform={`translate(${MARGIN.left} ${MARGIN.top})`}>
-          {y.ticks(4).map((t) => (
-            <g key={t} className="plot__tick" transform={`translate(0 ${y(t)})`}>
-              <line x2={w} className="plot__grid" />
-              <text x={-6} dy="0.32em" textAnchor="end">
-                {t}
-              </text>
-            </g>
-          ))}
-          {x.ticks(5).map((t) => (
-            <g key={t.getTime()} className="plot__tick" transform={`translate(${x(t)} ${h})`}>
-              <line y2={5} />
-              <text y={17} textAnchor="middle">
-                {formatTime(t)}
-              </text>
-            </g>
-          ))}
-          <line className="plot__axis" x2={w} y1={h} y2={h} />
-          <line className="plot__axis" y2={h} />
-          <path className="plot__line" d={d} />
-          {dated.map((p) =>
-            p.value === null ? null : (
-              <circle key={p.at.getTime()} className="plot__dot" cx={x(p.at)} cy={y(p.value)} r={2.5} />
-            ),
-          )}
-          <text className="plot__title" x={w / 2} y={h + 36} textAnchor="middle">
-            {xLabel}
-          </text>
-          <text className="plot__title" transform={`translate(-44 ${h / 2}) rotate(-90)`} textAnchor="middle">
-            {yLabel}
+    <PlotFigure label={label} summary={summary} xLabel={xLabel} yLabel={yLabel} width={width} height={height}>
+      <ValueGrid ticks={y.ticks(4)} y={y} width={w} />
+      {x.ticks(5).map((t) => (
+        <g key={t.getTime()} className="plot__tick" transform={`translate(${x(t)} ${h})`}>
+          <line y2={5} />
+          <text y={17} textAnchor="middle">
+            {formatTime(t)}
           </text>
         </g>
-      </svg>
-      <figcaption id={summaryId} className="plot__summary">
-        {summary}
-      </figcaption>
-    </figure>
+      ))}
+      <PlotAxes w={w} h={h} />
+      <path className="plot__line" d={d} />
+      {dated.map((p) =>
+        p.value === null ? null : (
+          <circle key={p.at.getTime()} className="plot__dot" cx={x(p.at)} cy={y(p.value)} r={2.5} />
+        ),
+      )}
+    </PlotFigure>
   );
 }

@@ -9,11 +9,11 @@ import {
   TableRow,
   TableToolbar,
   TableToolbarContent,
-  TableToolbarSearch,
 } from '@carbon/react';
 import { useState } from 'react';
 import { LoadError } from '../../../../components/LoadError';
 import { RegionBoundary } from '../../../../components/RegionBoundary';
+import { TableSearch } from '../../../../components/TableSearch';
 import { formatDateTime } from '../../../../lib/format';
 import { useDebouncedValue } from '../../../../lib/useDebouncedValue';
 import { useAudit } from '../api';
@@ -39,16 +39,13 @@ function AuditTable() {
     <TableContainer title="Audit trail" description="Who changed what, newest first.">
       <TableToolbar aria-label="Audit filters">
         <TableToolbarContent>
-          <TableToolbarSearch
-            persistent
+          <TableSearch
             labelText="Filter by action"
             placeholder="Filter by action, e.g. user.create"
             value={action}
-            onChange={(event) => {
-              if (event && typeof event !== 'string') {
-                setAction(event.target.value);
-                setPage(1);
-              }
+            onSearch={(text) => {
+              setAction(text);
+              setPage(1);
             }}
           />
         </TableToolbarContent>

@@ -1,14 +1,14 @@
-import { InlineNotification, Modal, Stack, TextInput } from '@carbon/react';
+import { TextInput } from '@carbon/react';
 import { CreateDistrictRequest } from '@stormhour/shared';
 import { useState } from 'react';
-import { ApiError, messageOf } from '../../../../lib/apiError';
+import { FormModal, useSaveAndClose } from '../../../../components/FormModal';
 import { fieldErrorsFromZod } from '../../../../lib/fieldErrors';
 import { useCreateDistrict } from '../api';
 
 export function AddDistrictModal({ onClose }: { onClose: () => void }) {
   const [code, setCode] = useState('');
   const [name, setName] = useState('');
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const { errors, setErrors, save } = useSaveAndClose(onClose);
   const mutation = useCreateDistrict();
 
   async function submit() {
@@ -17,55 +17,37 @@ export function AddDistrictModal({ onClose }: { onClose: () => void }) {
       setErrors(fieldErrorsFromZod(parsed.error));
       return;
     }
-    setErrors({});
-    try {
-      await mutation.mutateAsync(parsed.data);
-      onClose();
-    } catch (error) {
-      if (error instanceof ApiError) setErrors(error.fieldErrors);
-    }
+    await save(() => mutation.mutateAsync(parsed.data));
   }
 
   return (
-    <Modal
-      open
-      modalHeading="Add district"
+    <FormModal
+      heading="Add district"
       primaryButtonText="Add district"
-      secondaryButtonText="Cancel"
-      primaryButtonDisabled={mutation.isPending}
-      shouldSubmitOnEnter
-      onRequestSubmit={submit}
-      onRequestClose={onClose}
+      submitOnEnter
+      mutation={mutation}
+      errorTitle="The district was not added."
+      onSubmit={submit}
+      onClose={onClose}
     >
-      <Stack gap={5}>
-        {mutation.isError ? (
-          <InlineNotification
-            kind="error"
-            lowContrast
-            hideCloseButton
-            title="The district was not added."
-            subtitle={messageOf(mutation.error)}
-          />
-        ) : null}
-        <TextInput
-          id="district-code"
-          labelText="Code"
-          helperText="Capital letters, digits, - or _, e.g. RVB"
-          value={code}
-          onChange={(e) => setCode(e.target.value)}
-          invalid={Boolean(errors.code)}
-          invalidText={errors.code}
-          data-modal-primary-focus
-        />
-        <TextInput
-          id="district-name"
-          labelText="Name"
-          value={name}
-          onChange={(e) => setName(e.target.value)}
-          invalid={Boolean(errors.name)}
-          invalidText={errors.name}
-        />
-      </Stack>
-    </Modal>
+      <TextInput
+        id="district-code"
+        labelText="Code"
+        helperText="Capital letters, digits, - or _, e.g. RVB"
+        value={code}
+        onChange={(e) => setCode(e.target.value)}
+        invalid={Boolean(errors.code)}
+        invalidText={errors.code}
+        data-modal-primary-focus
+      />
+      <TextInput
+        id="district-name"
+        labelText="Name"
+        value={name}
+        onChange={(e) => setName(e.target.value)}
+        invalid={Boolean(errors.name)}
+        invalidText={errors.name}
+      />
+    </FormModal>
   );
 }

@@ -1,23 +1,10 @@
-import {
-  Button,
-  DataTable,
-  Select,
-  SelectItem,
-  Table,
-  TableBody,
-  TableCell,
-  TableContainer,
-  TableHead,
-  TableHeader,
-  TableRow,
-  TableToolbar,
-  TableToolbarContent,
-  TableToolbarSearch,
-} from '@carbon/react';
+import { Button, Select, SelectItem } from '@carbon/react';
 import type { BlockView, DistrictView } from '@stormhour/shared';
 import { useMemo, useState } from 'react';
 import { useDistricts } from '../../../../api/districts';
 import { LoadError } from '../../../../components/LoadError';
+import { SortableTable } from '../../../../components/SortableTable';
+import { TableSearch } from '../../../../components/TableSearch';
 import { useBlocks } from '../api';
 import { filterBlocks, formatArea } from '../blockList';
 import { EditBlockModal } from './EditBlockModal';
@@ -87,86 +74,48 @@ export function BlocksTable() {
 
   return (
     <>
-      <DataTable rows={shown.map(toRow)} headers={HEADERS} isSortable>
-        {({ rows, headers, getTableProps, getHeaderProps, getRowProps, getTableContainerProps }) => (
-          <TableContainer
-            description={blocks.isPending ? 'Loading…' : `${shown.length} of ${blocks.data.length} blocks`}
-            {...getTableContainerProps()}
-          >
-            <TableToolbar aria-label="Block filters">
-              <TableToolbarContent>
-                <TableToolbarSearch
-                  persistent
-                  labelText="Search blocks"
-                  placeholder="Search by code or name"
-                  value={query}
-                  onChange={(event) => {
-                    if (event && typeof event !== 'string') setQuery(event.target.value);
-                  }}
-                />
-                <DistrictFilter
-                  districts={districts.data ?? []}
-                  value={districtId}
-                  onChange={setDistrictId}
-                />
-              </TableToolbarContent>
-            </TableToolbar>
-            <Table {...getTableProps()} aria-label="Blocks">
-              <TableHead>
-                <TableRow>
-                  {headers.map((header) => {
-                    const { key, ...headerProps } = getHeaderProps({ header });
-                    return (
-                      <TableHeader key={key} {...headerProps}>
-                        {header.header}
-                      </TableHeader>
-                    );
-                  })}
-                  <TableHeader>
-                    <span className="cds--visually-hidden">Actions</span>
-                  </TableHeader>
-                </TableRow>
-              </TableHead>
-              <TableBody>
-                {rows.length === 0 ? (
-                  <TableRow>
-                    <TableCell colSpan={HEADERS.length + 1}>
-                      {blocks.isPending
-                        ? 'Loading blocks…'
-                        : blocks.data.length === 0
-                          ? 'No blocks yet. Import a GeoJSON file of block boundaries.'
-                          : 'No block matches the search.'}
-                    </TableCell>
-                  </TableRow>
-                ) : null}
-                {rows.map((row) => {
-                  const { key, ...rowProps } = getRowProps({ row });
-                  const block = byId.get(row.id);
-                  return (
-                    <TableRow key={key} {...rowProps}>
-                      {row.cells.map((cell) => (
-                        <TableCell key={cell.id} className={cell.info.header === 'code' ? 'mono' : undefined}>
-                          {cell.info.header === 'areaKm2' ? formatArea(Number(cell.value)) : cell.value}
-                        </TableCell>
-                      ))}
-                      <TableCell className="row-actions">
-                        <Button
-                          kind="ghost"
-                          size="sm"
-                          aria-label={`Edit ${row.cells[1]?.value ?? 'block'}`}
-                          onClick={() => block && setEditing(block)}
-                        >
-                          Edit
-                        </Button>
-                      </TableCell>
-                    </TableRow>
-                  );
-                })}
-              </TableBody>
-            </Table>
-          </TableContainer>
-        )}
-      </DataTable>
+      <SortableTable
+        rows={shown.map(toRow)}
+        headers={HEADERS}
+        label="Blocks"
+        description={blocks.isPending ? 'Loading…' : `${shown.length} of ${blocks.data.length} blocks`}
+        toolbar={{
+          label: 'Block filters',
+          content: (
+            <>
+              <TableSearch
+                labelText="Search blocks"
+                placeholder="Search by code or name"
+                value={query}
+                onSearch={setQuery}
+              />
+              <DistrictFilter districts={districts.data ?? []} value={districtId} onChange={setDistrictId} />
+            </>
+          ),
+        }}
+        empty={
+          blocks.isPending
+            ? 'Loading blocks…'
+            : blocks.data.length === 0
+              ? 'No blocks yet. Import a GeoJSON file of block boundaries.'
+              : 'No block matches the search.'
+        }
+        cellClassName={(header) => (header === 'code' ? 'mono' : undefined)}
+        renderCell={(header, value) => (header === 'areaKm2' ? formatArea(Number(value)) : String(value))}
+        renderActions={(row) => {
+          const block = byId.get(row.id);
+          return (
+            <Button
+              kind="ghost"
+              size="sm"
+              aria-label={`Edit ${row.cells[1]?.value ?? 'block'}`}
+              onClick={() => block && setEditing(block)}
+            >
+              Edit
+            </Button>
+          );
+        }}
+      />
       {editing ? (
         <EditBlockModal block={editing} districts={districts.data ?? []} onClose={() => setEditing(null)} />
       ) : null}

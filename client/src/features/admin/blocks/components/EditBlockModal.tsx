@@ -1,7 +1,7 @@
-import { InlineNotification, Modal, Select, SelectItem, Stack, TextInput } from '@carbon/react';
+import { Select, SelectItem, TextInput } from '@carbon/react';
 import { type BlockView, type DistrictView, UpdateBlockRequest } from '@stormhour/shared';
 import { useState } from 'react';
-import { ApiError, messageOf } from '../../../../lib/apiError';
+import { FormModal, useSaveAndClose } from '../../../../components/FormModal';
 import { fieldErrorsFromZod } from '../../../../lib/fieldErrors';
 import { useUpdateBlock } from '../api';
 
@@ -14,7 +14,7 @@ interface EditBlockModalProps {
 export function EditBlockModal({ block, districts, onClose }: EditBlockModalProps) {
   const [name, setName] = useState(block.name);
   const [districtId, setDistrictId] = useState(block.districtId);
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const { errors, setErrors, save } = useSaveAndClose(onClose);
   const mutation = useUpdateBlock();
 
   async function submit() {
@@ -32,58 +32,40 @@ export function EditBlockModal({ block, districts, onClose }: EditBlockModalProp
       onClose();
       return;
     }
-    setErrors({});
-    try {
-      await mutation.mutateAsync({ id: block.id, body: parsed.data });
-      onClose();
-    } catch (error) {
-      if (error instanceof ApiError) setErrors(error.fieldErrors);
-    }
+    await save(() => mutation.mutateAsync({ id: block.id, body: parsed.data }));
   }
 
   return (
-    <Modal
-      open
-      modalHeading={`Edit block ${block.code}`}
+    <FormModal
+      heading={`Edit block ${block.code}`}
       primaryButtonText="Save"
-      secondaryButtonText="Cancel"
-      primaryButtonDisabled={mutation.isPending}
-      shouldSubmitOnEnter
-      onRequestSubmit={submit}
-      onRequestClose={onClose}
+      submitOnEnter
+      mutation={mutation}
+      errorTitle="The block was not saved."
+      onSubmit={submit}
+      onClose={onClose}
     >
-      <Stack gap={5}>
-        {mutation.isError ? (
-          <InlineNotification
-            kind="error"
-            lowContrast
-            hideCloseButton
-            title="The block was not saved."
-            subtitle={messageOf(mutation.error)}
-          />
-        ) : null}
-        <TextInput
-          id="block-name"
-          labelText="Name"
-          value={name}
-          onChange={(e) => setName(e.target.value)}
-          invalid={Boolean(errors.name)}
-          invalidText={errors.name}
-          data-modal-primary-focus
-        />
-        <Select
-          id="block-district"
-          labelText="District"
-          value={String(districtId)}
-          onChange={(e) => setDistrictId(Number(e.target.value))}
-          invalid={Boolean(errors.districtId)}
-          invalidText={errors.districtId}
-        >
-          {districts.map((d) => (
-            <SelectItem key={d.id} value={String(d.id)} text={`${d.name} (${d.code})`} />
-          ))}
-        </Select>
-      </Stack>
-    </Modal>
+      <TextInput
+        id="block-name"
+        labelText="Name"
+        value={name}
+        onChange={(e) => setName(e.target.value)}
+        invalid={Boolean(errors.name)}
+        invalidText={errors.name}
+        data-modal-primary-focus
+      />
+      <Select
+        id="block-district"
+        labelText="District"
+        value={String(districtId)}
+        onChange={(e) => setDistrictId(Number(e.target.value))}
+        invalid={Boolean(errors.districtId)}
+        invalidText={errors.districtId}
+      >
+        {districts.map((d) => (
+          <SelectItem key={d.id} value={String(d.id)} text={`${d.name} (${d.code})`} />
+        ))}
+      </Select>
+    </FormModal>
   );
 }

@@ -1,7 +1,7 @@
-import { InlineNotification, Modal, Stack, TextInput } from '@carbon/react';
+import { TextInput } from '@carbon/react';
 import { CreateUserRequest, type DistrictView } from '@stormhour/shared';
 import { useState } from 'react';
-import { ApiError, messageOf } from '../../../../lib/apiError';
+import { FormModal, useSaveAndClose } from '../../../../components/FormModal';
 import { fieldErrorsFromZod } from '../../../../lib/fieldErrors';
 import { useCreateUser } from '../api';
 import { districtIdFor } from '../peopleList';
@@ -11,7 +11,7 @@ const EMPTY = { email: '', name: '', role: '', districtId: '', password: '' };
 
 export function AddPersonModal({ districts, onClose }: { districts: DistrictView[]; onClose: () => void }) {
   const [values, setValues] = useState(EMPTY);
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const { errors, setErrors, save } = useSaveAndClose(onClose);
   const mutation = useCreateUser();
   const set = (field: keyof typeof EMPTY) => (value: string) => setValues((v) => ({ ...v, [field]: value }));
 
@@ -27,75 +27,57 @@ export function AddPersonModal({ districts, onClose }: { districts: DistrictView
       setErrors(fieldErrorsFromZod(parsed.error));
       return;
     }
-    setErrors({});
-    try {
-      await mutation.mutateAsync(parsed.data);
-      onClose();
-    } catch (error) {
-      if (error instanceof ApiError) setErrors(error.fieldErrors);
-    }
+    await save(() => mutation.mutateAsync(parsed.data));
   }
 
   return (
-    <Modal
-      open
-      modalHeading="Add person"
+    <FormModal
+      heading="Add person"
       primaryButtonText="Add person"
-      secondaryButtonText="Cancel"
-      primaryButtonDisabled={mutation.isPending}
-      onRequestSubmit={submit}
-      onRequestClose={onClose}
+      mutation={mutation}
+      errorTitle="The person was not added."
+      onSubmit={submit}
+      onClose={onClose}
     >
-      <Stack gap={5}>
-        {mutation.isError ? (
-          <InlineNotification
-            kind="error"
-            lowContrast
-            hideCloseButton
-            title="The person was not added."
-            subtitle={messageOf(mutation.error)}
-          />
-        ) : null}
-        <TextInput
-          id="person-email"
-          labelText="Email"
-          type="email"
-          autoComplete="off"
-          value={values.email}
-          onChange={(e) => set('email')(e.target.value)}
-          invalid={Boolean(errors.email)}
-          invalidText={errors.email}
-          data-modal-primary-focus
-        />
-        <TextInput
-          id="person-name"
-          labelText="Name"
-          value={values.name}
-          onChange={(e) => set('name')(e.target.value)}
-          invalid={Boolean(errors.name)}
-          invalidText={errors.name}
-        />
-        <RoleDistrictFields
-          idPrefix="person"
-          role={values.role}
-          districtId={values.districtId}
-          districts={districts}
-          errors={errors}
-          onRoleChange={set('role')}
-          onDistrictChange={set('districtId')}
-        />
-        <TextInput
-          id="person-password"
-          labelText="Initial password"
-          type="password"
-          autoComplete="new-password"
-          helperText="At least 10 characters. Give it to the person in private; they can change it after signing in."
-          value={values.password}
-          onChange={(e) => set('password')(e.target.value)}
-          invalid={Boolean(errors.password)}
-          invalidText={errors.password}
-        />
-      </Stack>
-    </Modal>
+      <TextInput
+        id="person-email"
+        labelText="Email"
+        type="email"
+        autoComplete="off"
+        value={values.email}
+        onChange={(e) => set('email')(e.target.value)}
+        invalid={Boolean(errors.email)}
+        invalidText={errors.email}
+        data-modal-primary-focus
+      />
+      <TextInput
+        id="person-name"
+        labelText="Name"
+        value={values.name}
+        onChange={(e) => set('name')(e.target.value)}
+        invalid={Boolean(errors.name)}
+        invalidText={errors.name}
+      />
+      <RoleDistrictFields
+        idPrefix="person"
+        role={values.role}
+        districtId={values.districtId}
+        districts={districts}
+        errors={errors}
+        onRoleChange={set('role')}
+        onDistrictChange={set('districtId')}
+      />
+      <TextInput
+        id="person-password"
+        labelText="Initial password"
+        type="password"
+        autoComplete="new-password"
+        helperText="At least 10 characters. Give it to the person in private; they can change it after signing in."
+        value={values.password}
+        onChange={(e) => set('password')(e.target.value)}
+        invalid={Boolean(errors.password)}
+        invalidText={errors.password}
+      />
+    </FormModal>
   );
 }

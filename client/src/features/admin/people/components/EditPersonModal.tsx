@@ -1,7 +1,7 @@
-import { InlineNotification, Modal, Stack, TextInput } from '@carbon/react';
+import { TextInput } from '@carbon/react';
 import { type DistrictView, UpdateUserRequest, type UserView } from '@stormhour/shared';
 import { useState } from 'react';
-import { ApiError, messageOf } from '../../../../lib/apiError';
+import { FormModal, useSaveAndClose } from '../../../../components/FormModal';
 import { fieldErrorsFromZod } from '../../../../lib/fieldErrors';
 import { useUpdateUser } from '../api';
 import { districtIdFor } from '../peopleList';
@@ -17,7 +17,7 @@ export function EditPersonModal({ user, districts, onClose }: EditPersonModalPro
   const [name, setName] = useState(user.name);
   const [role, setRole] = useState<string>(user.role);
   const [districtId, setDistrictId] = useState(user.districtId === null ? '' : String(user.districtId));
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const { errors, setErrors, save } = useSaveAndClose(onClose);
   const mutation = useUpdateUser();
 
   async function submit() {
@@ -30,55 +30,37 @@ export function EditPersonModal({ user, districts, onClose }: EditPersonModalPro
       setErrors({ districtId: 'An extension officer must be assigned to a district' });
       return;
     }
-    setErrors({});
-    try {
-      await mutation.mutateAsync({ id: user.id, body: parsed.data });
-      onClose();
-    } catch (error) {
-      if (error instanceof ApiError) setErrors(error.fieldErrors);
-    }
+    await save(() => mutation.mutateAsync({ id: user.id, body: parsed.data }));
   }
 
   return (
-    <Modal
-      open
-      modalHeading={`Edit ${user.name}`}
-      modalLabel={user.email}
+    <FormModal
+      heading={`Edit ${user.name}`}
+      label={user.email}
       primaryButtonText="Save"
-      secondaryButtonText="Cancel"
-      primaryButtonDisabled={mutation.isPending}
-      onRequestSubmit={submit}
-      onRequestClose={onClose}
+      mutation={mutation}
+      errorTitle="The changes were not saved."
+      onSubmit={submit}
+      onClose={onClose}
     >
-      <Stack gap={5}>
-        {mutation.isError ? (
-          <InlineNotification
-            kind="error"
-            lowContrast
-            hideCloseButton
-            title="The changes were not saved."
-            subtitle={messageOf(mutation.error)}
-          />
-        ) : null}
-        <TextInput
-          id="edit-person-name"
-          labelText="Name"
-          value={name}
-          onChange={(e) => setName(e.target.value)}
-          invalid={Boolean(errors.name)}
-          invalidText={errors.name}
-          data-modal-primary-focus
-        />
-        <RoleDistrictFields
-          idPrefix="edit-person"
-          role={role}
-          districtId={districtId}
-          districts={districts}
-          errors={errors}
-          onRoleChange={setRole}
-          onDistrictChange={setDistrictId}
-        />
-      </Stack>
-    </Modal>
+      <TextInput
+        id="edit-person-name"
+        labelText="Name"
+        value={name}
+        onChange={(e) => setName(e.target.value)}
+        invalid={Boolean(errors.name)}
+        invalidText={errors.name}
+        data-modal-primary-focus
+      />
+      <RoleDistrictFields
+        idPrefix="edit-person"
+        role={role}
+        districtId={districtId}
+        districts={districts}
+        errors={errors}
+        onRoleChange={setRole}
+        onDistrictChange={setDistrictId}
+      />
+    </FormModal>
   );
 }

@@ -1,24 +1,10 @@
-import {
-  Button,
-  DataTable,
-  Select,
-  SelectItem,
-  Table,
-  TableBody,
-  TableCell,
-  TableContainer,
-  TableHead,
-  TableHeader,
-  TableRow,
-  TableToolbar,
-  TableToolbarContent,
-  TableToolbarSearch,
-  Tag,
-} from '@carbon/react';
+import { Button, Select, SelectItem, Tag } from '@carbon/react';
 import { type DistrictView, ROLE_LABELS, ROLES, type Role, type UserView } from '@stormhour/shared';
 import { useMemo, useState } from 'react';
 import { useDistricts } from '../../../../api/districts';
 import { LoadError } from '../../../../components/LoadError';
+import { SortableTable } from '../../../../components/SortableTable';
+import { TableSearch } from '../../../../components/TableSearch';
 import { useSessionUser } from '../../../../lib/auth';
 import { formatDateTime } from '../../../../lib/format';
 import { useUsers } from '../api';
@@ -93,105 +79,70 @@ export function PeopleTable() {
 
   return (
     <>
-      <DataTable rows={shown.map((u) => toRow(u, districtNames))} headers={HEADERS} isSortable>
-        {({ rows, headers, getTableProps, getHeaderProps, getRowProps, getTableContainerProps }) => (
-          <TableContainer
-            title="People"
-            description="Everyone who can sign in to Stormhour, and what their role lets them do."
-            {...getTableContainerProps()}
-          >
-            <TableToolbar aria-label="People filters">
-              <TableToolbarContent>
-                <TableToolbarSearch
-                  persistent
-                  labelText="Search people"
-                  placeholder="Search by e-mail or name"
-                  value={query}
-                  onChange={(event) => {
-                    if (event && typeof event !== 'string') setQuery(event.target.value);
-                  }}
-                />
-                <Select
-                  id="people-role-filter"
-                  className="toolbar-filter"
-                  labelText="Filter by role"
-                  hideLabel
-                  inline
-                  value={role ?? ''}
-                  onChange={(e) => setRole(e.target.value === '' ? null : (e.target.value as Role))}
-                >
-                  <SelectItem value="" text="All roles" />
-                  {ROLES.map((r) => (
-                    <SelectItem key={r} value={r} text={ROLE_LABELS[r]} />
-                  ))}
-                </Select>
-                <Button size="sm" onClick={() => setDialog({ kind: 'add' })}>
-                  Add person
-                </Button>
-              </TableToolbarContent>
-            </TableToolbar>
-            <Table {...getTableProps()} aria-label="People">
-              <TableHead>
-                <TableRow>
-                  {headers.map((header) => {
-                    const { key, ...headerProps } = getHeaderProps({ header });
-                    return (
-                      <TableHeader key={key} {...headerProps}>
-                        {header.header}
-                      </TableHeader>
-                    );
-                  })}
-                  <TableHeader>
-                    <span className="cds--visually-hidden">Actions</span>
-                  </TableHeader>
-                </TableRow>
-              </TableHead>
-              <TableBody>
-                {rows.length === 0 ? (
-                  <TableRow>
-                    <TableCell colSpan={HEADERS.length + 1}>
-                      {users.isPending ? 'Loading people…' : 'No one matches the search.'}
-                    </TableCell>
-                  </TableRow>
-                ) : null}
-                {rows.map((row) => {
-                  const { key, ...rowProps } = getRowProps({ row });
-                  const user = byId.get(row.id);
-                  if (!user) return null;
-                  return (
-                    <TableRow key={key} {...rowProps}>
-                      {row.cells.map((cell) => (
-                        <TableCell key={cell.id}>
-                          <CellContent header={cell.info.header} value={cell.value} />
-                        </TableCell>
-                      ))}
-                      <TableCell className="row-actions">
-                        <Button
-                          kind="ghost"
-                          size="sm"
-                          aria-label={`Edit ${user.name}`}
-                          onClick={() => setDialog({ kind: 'edit', user })}
-                        >
-                          Edit
-                        </Button>
-                        <Button
-                          kind="ghost"
-                          size="sm"
-                          disabled={user.id === me.id}
-                          aria-label={`${user.active ? 'Deactivate' : 'Reactivate'} ${user.name}`}
-                          onClick={() => setDialog({ kind: 'active', user })}
-                        >
-                          {user.active ? 'Deactivate' : 'Reactivate'}
-                        </Button>
-                      </TableCell>
-                    </TableRow>
-                  );
-                })}
-              </TableBody>
-            </Table>
-          </TableContainer>
-        )}
-      </DataTable>
+      <SortableTable
+        rows={shown.map((u) => toRow(u, districtNames))}
+        headers={HEADERS}
+        label="People"
+        title="People"
+        description="Everyone who can sign in to Stormhour, and what their role lets them do."
+        toolbar={{
+          label: 'People filters',
+          content: (
+            <>
+              <TableSearch
+                labelText="Search people"
+                placeholder="Search by e-mail or name"
+                value={query}
+                onSearch={setQuery}
+              />
+              <Select
+                id="people-role-filter"
+                className="toolbar-filter"
+                labelText="Filter by role"
+                hideLabel
+                inline
+                value={role ?? ''}
+                onChange={(e) => setRole(e.target.value === '' ? null : (e.target.value as Role))}
+              >
+                <SelectItem value="" text="All roles" />
+                {ROLES.map((r) => (
+                  <SelectItem key={r} value={r} text={ROLE_LABELS[r]} />
+                ))}
+              </Select>
+              <Button size="sm" onClick={() => setDialog({ kind: 'add' })}>
+                Add person
+              </Button>
+            </>
+          ),
+        }}
+        empty={users.isPending ? 'Loading people…' : 'No one matches the search.'}
+        renderCell={(header, value) => <CellContent header={header} value={value} />}
+        renderActions={(row) => {
+          const user = byId.get(row.id);
+          if (!user) return null;
+          return (
+            <>
+              <Button
+                kind="ghost"
+                size="sm"
+                aria-label={`Edit ${user.name}`}
+                onClick={() => setDialog({ kind: 'edit', user })}
+              >
+                Edit
+              </Button>
+              <Button
+                kind="ghost"
+                size="sm"
+                disabled={user.id === me.id}
+                aria-label={`${user.active ? 'Deactivate' : 'Reactivate'} ${user.name}`}
+                onClick={() => setDialog({ kind: 'active', user })}
+              >
+                {user.active ? 'Deactivate' : 'Reactivate'}
+              </Button>
+            </>
+          );
+        }}
+      />
       <Dialogs dialog={dialog} districts={districts.data ?? []} close={() => setDialog(null)} />
     </>
   );

@@ -1,18 +1,8 @@
-import {
-  DataTable,
-  InlineLoading,
-  Link,
-  Table,
-  TableBody,
-  TableCell,
-  TableContainer,
-  TableHead,
-  TableHeader,
-  TableRow,
-} from '@carbon/react';
+import { InlineLoading, Link } from '@carbon/react';
 import type { IntakeKind, JobState, JobView, SiteView } from '@stormhour/shared';
 import { Link as RouterLink } from 'react-router';
 import { LoadError } from '../../../../components/LoadError';
+import { SortableTable } from '../../../../components/SortableTable';
 import { paths } from '../../../../config/paths';
 import { formatDateTime } from '../../../../lib/format';
 import { useSites } from '../../sites/api';
@@ -67,47 +57,13 @@ export function JobsTable() {
   if (jobs.isPending) return <InlineLoading description="Loading the jobs" />;
   if (jobs.isError) return <LoadError what="the jobs" error={jobs.error} onRetry={jobs.refetch} />;
   return (
-    <DataTable rows={jobs.data.map((j) => toRow(j, sites.data ?? []))} headers={HEADERS} isSortable>
-      {({ rows, headers, getTableProps, getHeaderProps, getRowProps, getTableContainerProps }) => (
-        <TableContainer
-          description={`The latest ${jobs.data.length} jobs, newest first`}
-          {...getTableContainerProps()}
-        >
-          <Table {...getTableProps()} aria-label="Jobs">
-            <TableHead>
-              <TableRow>
-                {headers.map((header) => {
-                  const { key, ...headerProps } = getHeaderProps({ header });
-                  return (
-                    <TableHeader key={key} {...headerProps}>
-                      {header.header}
-                    </TableHeader>
-                  );
-                })}
-              </TableRow>
-            </TableHead>
-            <TableBody>
-              {rows.length === 0 ? (
-                <TableRow>
-                  <TableCell colSpan={HEADERS.length}>
-                    No jobs yet. Upload files above to start one.
-                  </TableCell>
-                </TableRow>
-              ) : null}
-              {rows.map((row) => {
-                const { key, ...rowProps } = getRowProps({ row });
-                return (
-                  <TableRow key={key} {...rowProps}>
-                    {row.cells.map((cell) => (
-                      <TableCell key={cell.id}>{cellContent(cell.info.header, cell.value)}</TableCell>
-                    ))}
-                  </TableRow>
-                );
-              })}
-            </TableBody>
-          </Table>
-        </TableContainer>
-      )}
-    </DataTable>
+    <SortableTable
+      rows={jobs.data.map((j) => toRow(j, sites.data ?? []))}
+      headers={HEADERS}
+      label="Jobs"
+      description={`The latest ${jobs.data.length} jobs, newest first`}
+      empty="No jobs yet. Upload files above to start one."
+      renderCell={cellContent}
+    />
   );
 }

@@ -1,0 +1,82 @@
+import { InlineNotification, Modal, Stack } from '@carbon/react';
+import { type ReactNode, useState } from 'react';
+import { ApiError, messageOf } from '../lib/apiError';
+
+type FieldErrors = Record<string, string>;
+
+/**
+ * Field errors for a form that saves through the server and closes when done.
+ * `save` clears old errors, sends, then closes; a refusal with field errors puts them beside the fields,
+ * and any other failure is left to the mutation's error, which the modal shows.
+ */
+export function useSaveAndClose(onClose: () => void) {
+  const [errors, setErrors] = useState<FieldErrors>({});
+
+  async function save(send: () => Promise<unknown>) {
+    setErrors({});
+    try {
+      await send();
+      onClose();
+    } catch (error) {
+      if (error instanceof ApiError) setErrors(error.fieldErrors);
+    }
+  }
+
+  return { errors, setErrors, save };
+}
+
+interface FormModalProps {
+  heading: string;
+  /** Small text above the heading. */
+  label?: string;
+  primaryButtonText: string;
+  /** Submit when Enter is pressed in a field; only for short forms. */
+  submitOnEnter?: boolean;
+  /** The mutation that saves the form; its state disables the button and shows why a save failed. */
+  mutation: { isPending: boolean; isError: boolean; error: unknown };
+  /** Title of the notice shown when saving failed. */
+  errorTitle: string;
+  onSubmit: () => void;
+  onClose: () => void;
+  children: ReactNode;
+}
+
+/** A modal form with Cancel, a primary button that submits, and a notice when the save fails. */
+export function FormModal({
+  heading,
+  label,
+  primaryButtonText,
+  submitOnEnter,
+  mutation,
+  errorTitle,
+  onSubmit,
+  onClose,
+  children,
+}: FormModalProps) {
+  return (
+    <Modal
+      open
+      modalHeading={heading}
+      modalLabel={label}
+      primaryButtonText={primaryButtonText}
+      secondaryButtonText="Cancel"
+      primaryButtonDisabled={mutation.isPending}
+      shouldSubmitOnEnter={submitOnEnter}
+      onRequestSubmit={onSubmit}
+      onRequestClose={onClose}
+    >
+      <Stack gap={5}>
+        {mutation.isError ? (
+          <InlineNotification
+            kind="error"
+            lowContrast
+            hideCloseButton
+            title={errorTitle}
+            subtitle={messageOf(mutation.error)}
+          />
+        ) : null}
+        {children}
+      </Stack>
+    </Modal>
+  );
+}
