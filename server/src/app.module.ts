@@ -14,6 +14,7 @@ import { HealthModule } from './health/health.module.js';
 import { IntakeModule } from './intake/intake.module.js';
 import { JobsModule } from './jobs/jobs.module.js';
 import { RadarModule } from './radar/radar.module.js';
+import { RegimesModule } from './regimes/regimes.module.js';
 import { RegionsModule } from './regions/regions.module.js';
 import { UsersModule } from './users/users.module.js';
 
@@ -41,6 +42,7 @@ export class AppModule implements NestModule {
         HealthModule,
         JobsModule,
         RadarModule,
+        RegimesModule,
         IntakeModule,
         DemoModule,
         ...staticClient,

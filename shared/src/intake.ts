@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-export const INTAKE_KINDS = ['volume', 'column-max', 'cell-table', 'scan-inventory'] as const;
+export const INTAKE_KINDS = ['volume', 'column-max', 'cell-table', 'scan-inventory', 'anomaly-grid'] as const;
 export type IntakeKind = (typeof INTAKE_KINDS)[number];
 
 /** Our names for the columns of a cell table; the user maps their file's columns onto these. */
@@ -98,6 +98,10 @@ export const IntakeRequest = z
      * YYYY MM DD hh mm ss, e.g. "VSR_YYYYMMDD_hhmm.tif". Times are UTC.
      */
     timePattern: z.string().optional(),
+    /** Anomaly grids: which field the file holds, when its metadata does not say (VARIABLE). */
+    variable: z.enum(['q', 'u', 'v']).optional(),
+    /** Anomaly grids: the file's units, when its metadata does not say (UNITS); converted on intake. */
+    units: z.enum(['g/kg', 'kg/kg', 'm/s', 'kt']).optional(),
   })
   .strict();
 export type IntakeRequest = z.infer<typeof IntakeRequest>;
@@ -148,7 +152,10 @@ export interface JobView {
   stage: string | null;
   params: Record<string, unknown>;
   files: JobFileView[];
+  /** The radar quality report; null for other kinds of job. */
   report: QualityReport | null;
+  /** What a job that is not a radar intake did, in a sentence. */
+  summary: string | null;
   problems: JobProblemView[];
   error: string | null;
   createdAt: string;

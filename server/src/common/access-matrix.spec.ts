@@ -37,6 +37,10 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'GET /api/tracks': ['scientist'],
   'GET /api/tracks/:id': ['scientist'],
   'GET /api/cells': ['scientist'],
+  'GET /api/regimes': ['scientist', 'writer'],
+  'GET /api/regimes/composite': ['scientist', 'writer'],
+  'GET /api/regimes/settings': ['scientist', 'writer'],
+  'PUT /api/regimes/settings': ['scientist'],
 };
 
 interface ExpressLayer {
@@ -77,7 +81,7 @@ describe('authorization matrix', () => {
     const [method, path] = route.split(' ');
     const url = path.replace(/:id/g, '999999');
     const call = (token?: string) => {
-      const req = t.http[method.toLowerCase() as 'get' | 'post' | 'patch'](url);
+      const req = t.http[method.toLowerCase() as 'get' | 'post' | 'patch' | 'put'](url);
       if (token) req.set('Authorization', `Bearer ${token}`);
       return req.send({});
     };

@@ -1,6 +1,12 @@
-import type { BlockedSector, GeoPolygonal, SiteSettings } from '@stormhour/shared';
+import type {
+  BlockedSector,
+  GeoPolygonal,
+  RegimeSettings as RegimeSettingsShape,
+  SiteSettings,
+} from '@stormhour/shared';
 import {
   boolean,
+  customType,
   doublePrecision,
   index,
   integer,
@@ -12,6 +18,9 @@ import {
   uniqueIndex,
 } from 'drizzle-orm/pg-core';
 import type { JobFile, JobProblem } from '../jobs/job-problem.js';
+
+/** PostgreSQL bytea as a Node Buffer. */
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
 
 const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow();
 
@@ -261,4 +270,47 @@ export const cells = pgTable(
     index('cells_track_idx').on(t.trackId),
     index('cells_upload_idx').on(t.uploadId),
   ],
+);
+
+// ── Anomalies and regimes ─────────────────────────────────────────────────────────────────────────
+
+/**
+ * One day of one anomaly field on a regular longitude–latitude grid, values as little-endian
+ * float32 (NaN where missing), row 0 the northernmost. Units are canonical: g/kg for q, m/s for u, v.
+ */
+export const anomalyFields = pgTable(
+  'anomaly_fields',
+  {
+    id: serial('id').primaryKey(),
+    uploadId: integer('upload_id').references(() => uploads.id),
+    variable: text('variable', { enum: ['q', 'u', 'v'] }).notNull(),
+    levelHpa: integer('level_hpa').notNull(),
+    /** The local date the daily mean stands for, YYYY-MM-DD. */
+    date: text('date').notNull(),
+    nx: integer('nx').notNull(),
+    ny: integer('ny').notNull(),
+    /** Centre of the first column and of the first (northern) row, and the spacing, degrees. */
+    lon0: doublePrecision('lon0').notNull(),
+    lat0: doublePrecision('lat0').notNull(),
+    dLon: doublePrecision('d_lon').notNull(),
+    dLat: doublePrecision('d_lat').notNull(),
+    values: bytea('values').notNull(),
+    sourceFile: text('source_file').notNull(),
+  },
+  (t) => [uniqueIndex('anomaly_fields_key_idx').on(t.variable, t.levelHpa, t.date)],
+);
+
+export const regimeSettings = pgTable(
+  'regime_settings',
+  {
+    id: serial('id').primaryKey(),
+    siteId: integer('site_id')
+      .notNull()
+      .references(() => radarSites.id),
+    version: integer('version').notNull(),
+    settings: jsonb('settings').$type<RegimeSettingsShape>().notNull(),
+    createdAt: createdAt(),
+    createdBy: integer('created_by').references(() => users.id),
+  },
+  (t) => [uniqueIndex('regime_settings_version_idx').on(t.siteId, t.version)],
 );

@@ -82,7 +82,8 @@ export class DemoSeeder implements OnApplicationBootstrap {
     const site = await this.sites.create(null, CreateSiteRequest.parse(siteJson.createSiteRequest));
     const files = readdirSync(dir);
     const runDir = files.find((f) => f.startsWith('run-'));
-    const steps: [kind: 'scan-inventory' | 'cell-table' | 'volume', paths: string[]][] = [
+    const steps: [kind: 'scan-inventory' | 'cell-table' | 'volume' | 'anomaly-grid', paths: string[]][] = [
+      ['anomaly-grid', files.filter((f) => /^anomalies-.*\.tif$/.test(f)).map((f) => join(dir, f))],
       ['scan-inventory', files.filter((f) => /^scans-.*\.csv$/.test(f)).map((f) => join(dir, f))],
       ['cell-table', files.filter((f) => /^cells-.*\.csv$/.test(f)).map((f) => join(dir, f))],
       [

@@ -3,6 +3,8 @@ import { MulterModule } from '@nestjs/platform-express';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { JobsModule } from '../jobs/jobs.module.js';
 import { RadarModule } from '../radar/radar.module.js';
+import { RegimesModule } from '../regimes/regimes.module.js';
+import { AnomalyIntakeHandler } from './anomaly-intake.handler.js';
 import { IntakeController } from './intake.controller.js';
 import { IntakeService } from './intake.service.js';
 import { RadarIntakeHandler } from './radar-intake.handler.js';
@@ -12,13 +14,14 @@ import { UploadsRepository } from './uploads.repository.js';
   imports: [
     JobsModule,
     RadarModule,
+    RegimesModule,
     MulterModule.registerAsync({
       inject: [APP_CONFIG],
       useFactory: (config: AppConfig) => ({ limits: { fileSize: config.uploadLimitBytes, files: 500 } }),
     }),
   ],
   controllers: [IntakeController],
-  providers: [IntakeService, UploadsRepository, RadarIntakeHandler],
+  providers: [IntakeService, UploadsRepository, RadarIntakeHandler, AnomalyIntakeHandler],
   exports: [IntakeService],
 })
 export class IntakeModule {}

@@ -5,6 +5,11 @@ import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import type { JobFile } from '../jobs/job-problem.js';
 import { JobsService } from '../jobs/jobs.service.js';
 import { SitesRepository } from '../radar/sites.repository.js';
+import {
+  ANOMALY_INTAKE_JOB,
+  AnomalyIntakeHandler,
+  type AnomalyIntakeParams,
+} from './anomaly-intake.handler.js';
 import { RADAR_INTAKE_JOB, RadarIntakeHandler, type RadarIntakeParams } from './radar-intake.handler.js';
 import { UploadStore } from './upload-store.js';
 import { UploadsRepository } from './uploads.repository.js';
@@ -27,6 +32,7 @@ export class IntakeService implements OnModuleInit {
     private readonly jobs: JobsService,
     private readonly audit: AuditService,
     private readonly radarIntake: RadarIntakeHandler,
+    private readonly anomalyIntake: AnomalyIntakeHandler,
   ) {
     this.store = new UploadStore(config.filesDir);
   }
@@ -34,6 +40,9 @@ export class IntakeService implements OnModuleInit {
   onModuleInit(): void {
     this.jobs.register(RADAR_INTAKE_JOB, (params, ctx) =>
       this.radarIntake.run(params as unknown as RadarIntakeParams, ctx),
+    );
+    this.jobs.register(ANOMALY_INTAKE_JOB, (params, ctx) =>
+      this.anomalyIntake.run(params as unknown as AnomalyIntakeParams, ctx),
     );
   }
 
@@ -83,17 +92,36 @@ export class IntakeService implements OnModuleInit {
         state: duplicate ? 'duplicate' : 'waiting',
       });
     }
-    const params: RadarIntakeParams = {
-      siteId: site.id,
-      kind: req.kind,
-      onError: req.onError,
-      mapping,
-      timePattern: req.timePattern,
-      settingsVersion: site.settingsVersion,
-      files: jobFiles.map((f) => ({ uploadId: f.uploadId, fileName: f.fileName, duplicate: f.duplicate })),
-    };
+    const fileRefs = jobFiles.map((f) => ({
+      uploadId: f.uploadId,
+      fileName: f.fileName,
+      duplicate: f.duplicate,
+    }));
+    const [jobKind, params] =
+      req.kind === 'anomaly-grid'
+        ? [
+            ANOMALY_INTAKE_JOB,
+            {
+              onError: req.onError,
+              variable: req.variable,
+              units: req.units,
+              files: fileRefs,
+            } satisfies AnomalyIntakeParams,
+          ]
+        : [
+            RADAR_INTAKE_JOB,
+            {
+              siteId: site.id,
+              kind: req.kind,
+              onError: req.onError,
+              mapping,
+              timePattern: req.timePattern,
+              settingsVersion: site.settingsVersion,
+              files: fileRefs,
+            } satisfies RadarIntakeParams,
+          ];
     const queued = await this.jobs.enqueue(
-      RADAR_INTAKE_JOB,
+      jobKind,
       params as unknown as Record<string, unknown>,
       actor?.id ?? null,
       jobFiles,

@@ -31,9 +31,11 @@ import { UploadsRepository } from './uploads.repository.js';
 
 export const RADAR_INTAKE_JOB = 'radar-intake';
 
+export type RadarKind = Exclude<IntakeKind, 'anomaly-grid'>;
+
 export interface RadarIntakeParams {
   siteId: number;
-  kind: IntakeKind;
+  kind: RadarKind;
   onError: 'fail' | 'skip';
   mapping?: CellTableMapping;
   timePattern?: string;

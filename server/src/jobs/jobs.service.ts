@@ -29,7 +29,11 @@ export function toJobView(row: JobRow): JobView {
     stage: row.stage,
     params: row.params,
     files: row.files,
-    report: (row.result as QualityReport | null) ?? null,
+    report:
+      row.kind === 'radar-intake' && row.result && 'filesRead' in row.result
+        ? (row.result as unknown as QualityReport)
+        : null,
+    summary: typeof row.result?.summary === 'string' ? row.result.summary : null,
     problems: row.problems,
     error: row.error,
     createdAt: row.createdAt.toISOString(),

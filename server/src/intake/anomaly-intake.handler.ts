@@ -1,0 +1,98 @@
+import { Inject, Injectable } from '@nestjs/common';
+import type { AnomalyVariable } from '@stormhour/shared';
+import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import type { JobFile, JobProblem } from '../jobs/job-problem.js';
+import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
+import { AnomaliesRepository } from '../regimes/anomalies.repository.js';
+import { type AnomalyFile, type AnomalyUnits, readAnomalyTiff } from './anomaly-reader.js';
+import { FileProblem } from './geotiff-reader.js';
+import { UploadStore } from './upload-store.js';
+import { UploadsRepository } from './uploads.repository.js';
+
+export const ANOMALY_INTAKE_JOB = 'anomaly-intake';
+
+export interface AnomalyIntakeParams {
+  onError: 'fail' | 'skip';
+  variable?: AnomalyVariable;
+  units?: AnomalyUnits;
+  files: { uploadId: number; fileName: string; duplicate: boolean }[];
+}
+
+/** Anomaly grids through the shared intake: every file read first, then each stored in one transaction. */
+@Injectable()
+export class AnomalyIntakeHandler {
+  private readonly store: UploadStore;
+
+  constructor(
+    @Inject(APP_CONFIG) config: AppConfig,
+    private readonly uploads: UploadsRepository,
+    private readonly anomalies: AnomaliesRepository,
+  ) {
+    this.store = new UploadStore(config.filesDir);
+  }
+
+  async run(p: AnomalyIntakeParams, ctx: JobContext): Promise<JobOutcome> {
+    const files: JobFile[] = p.files.map((f) => ({
+      uploadId: f.uploadId,
+      fileName: f.fileName,
+      sizeBytes: 0,
+      duplicate: f.duplicate,
+      state: f.duplicate ? 'duplicate' : 'waiting',
+    }));
+    const problems: JobProblem[] = [];
+    const parsed = new Map<number, AnomalyFile>();
+    const todo = files.filter((f) => !f.duplicate);
+    for (const [n, f] of todo.entries()) {
+      await ctx.progress((0.5 * n) / todo.length, `Reading ${f.fileName}`);
+      const upload = await this.uploads.find(f.uploadId);
+      if (!upload) throw new Error(`upload ${f.uploadId} vanished`);
+      f.sizeBytes = upload.sizeBytes;
+      try {
+        parsed.set(f.uploadId, await readAnomalyTiff(await this.store.read(upload.sha256), p));
+      } catch (e) {
+        if (!(e instanceof FileProblem)) throw e;
+        for (const one of e.all) problems.push({ file: f.fileName, ...one });
+        f.state = p.onError === 'fail' ? 'failed' : 'skipped';
+        if (p.onError === 'fail') {
+          await ctx.setFiles(files);
+          return {
+            result: {},
+            problems,
+            error: `${f.fileName} has problems, so the job stopped as asked and nothing was stored.`,
+          };
+        }
+      }
+    }
+    const summary: string[] = [];
+    for (const [n, f] of todo.entries()) {
+      const file = parsed.get(f.uploadId);
+      if (!file) continue;
+      await ctx.progress(0.5 + (0.5 * n) / todo.length, `Storing ${f.fileName}`);
+      await this.anomalies.transaction(async (tx) => {
+        await this.uploads.markImported(f.uploadId, tx);
+        for (const day of file.days) {
+          await this.anomalies.upsert(
+            {
+              uploadId: f.uploadId,
+              variable: file.variable,
+              levelHpa: file.levelHpa,
+              date: day.date,
+              ...file.grid,
+              values: Buffer.from(day.values.buffer, day.values.byteOffset, day.values.byteLength),
+              sourceFile: f.fileName,
+            },
+            tx,
+          );
+        }
+      });
+      f.state = 'imported';
+      const first = file.days[0]?.date;
+      const last = file.days[file.days.length - 1]?.date;
+      summary.push(
+        `${f.fileName}: ${file.variable} at ${file.levelHpa} hPa, ${file.days.length} days ${first}–${last}, ${file.conversion}`,
+      );
+    }
+    await ctx.setFiles(files);
+    return { result: { summary: summary.join('; ') }, problems };
+  }
+}

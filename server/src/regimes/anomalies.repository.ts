@@ -1,0 +1,94 @@
+import { Inject, Injectable } from '@nestjs/common';
+import type { AnomalyVariable, RegimeSettings } from '@stormhour/shared';
+import { and, asc, desc, eq, gte, lte, sql } from 'drizzle-orm';
+import { DATABASE, type DatabaseHandle, type Executor } from '../database/database.js';
+import { anomalyFields, regimeSettings } from '../database/schema.js';
+
+export interface StoredField {
+  variable: AnomalyVariable;
+  date: string;
+  nx: number;
+  ny: number;
+  lon0: number;
+  lat0: number;
+  dLon: number;
+  dLat: number;
+  values: Float32Array;
+}
+
+@Injectable()
+export class AnomaliesRepository {
+  constructor(@Inject(DATABASE) private readonly handle: DatabaseHandle) {}
+
+  transaction<T>(work: (tx: Executor) => Promise<T>): Promise<T> {
+    return this.handle.db.transaction(work);
+  }
+
+  /** Stores a day's field; a later upload of the same variable, level and date replaces it. */
+  async upsert(row: typeof anomalyFields.$inferInsert, tx: Executor): Promise<void> {
+    await tx
+      .insert(anomalyFields)
+      .values(row)
+      .onConflictDoUpdate({
+        target: [anomalyFields.variable, anomalyFields.levelHpa, anomalyFields.date],
+        set: {
+          uploadId: row.uploadId,
+          nx: row.nx,
+          ny: row.ny,
+          lon0: row.lon0,
+          lat0: row.lat0,
+          dLon: row.dLon,
+          dLat: row.dLat,
+          values: row.values,
+          sourceFile: row.sourceFile,
+        },
+      });
+  }
+
+  async fields(levelHpa: number, from?: string, to?: string): Promise<StoredField[]> {
+    const where = [eq(anomalyFields.levelHpa, levelHpa)];
+    if (from) where.push(gte(anomalyFields.date, from));
+    if (to) where.push(lte(anomalyFields.date, to));
+    const rows = await this.handle.db
+      .select()
+      .from(anomalyFields)
+      .where(and(...where))
+      .orderBy(asc(anomalyFields.date));
+    return rows.map((r) => ({
+      variable: r.variable,
+      date: r.date,
+      nx: r.nx,
+      ny: r.ny,
+      lon0: r.lon0,
+      lat0: r.lat0,
+      dLon: r.dLon,
+      dLat: r.dLat,
+      // Copy: the driver's buffer may not be 4-byte aligned.
+      values: new Float32Array(Uint8Array.from(r.values).buffer),
+    }));
+  }
+
+  async count(): Promise<number> {
+    const [{ n }] = await this.handle.db.select({ n: sql<number>`count(*)::int` }).from(anomalyFields);
+    return n;
+  }
+
+  async latestSettings(siteId: number): Promise<{ version: number; settings: RegimeSettings } | undefined> {
+    const [row] = await this.handle.db
+      .select()
+      .from(regimeSettings)
+      .where(eq(regimeSettings.siteId, siteId))
+      .orderBy(desc(regimeSettings.version))
+      .limit(1);
+    return row && { version: row.version, settings: row.settings };
+  }
+
+  async addSettings(
+    siteId: number,
+    version: number,
+    settings: RegimeSettings,
+    createdBy: number | null,
+  ): Promise<void> {
+    await this.handle.db.insert(regimeSettings).values({ siteId, version, settings, createdBy });
+  }
+}
