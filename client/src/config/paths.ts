@@ -68,4 +68,6 @@ export const api = {
   tracks: '/api/tracks',
   track: (id: number) => `/api/tracks/${id}`,
   cells: '/api/cells',
+  regimes: '/api/regimes',
+  regimeComposite: '/api/regimes/composite',
 } as const;

@@ -57,6 +57,7 @@ export function aJob(overrides: Partial<JobView> = {}): JobView {
     params: { siteId: 1, onError: 'skip' },
     files: [],
     report: null,
+    summary: null,
     problems: [],
     error: null,
     createdAt: '2026-07-14T03:00:00.000Z',

@@ -12,4 +12,6 @@ declare module '@carbon/colors' {
   export const red60: string;
   export const teal50: string;
   export const yellow40: string;
+  /** Every palette by hue name, then by grade (10–100). */
+  export const colors: Record<string, Record<number, string>>;
 }

@@ -1,10 +1,11 @@
-import type { CellTableMapping, IntakeKind } from '@stormhour/shared';
+import type { AnomalyVariable, CellTableMapping, IntakeKind, IntakeRequest } from '@stormhour/shared';
 
 export const KIND_LABELS: Record<IntakeKind, string> = {
   volume: 'Volume scans (GeoTIFF)',
   'column-max': 'Column-maximum fields (GeoTIFF)',
   'cell-table': 'Cell table (CSV)',
   'scan-inventory': 'Scan inventory (CSV)',
+  'anomaly-grid': 'Anomaly grids (GeoTIFF, one band per day)',
 };
 
 /** File-name endings each kind takes. */
@@ -13,7 +14,31 @@ export const KIND_EXTENSIONS: Record<IntakeKind, string[]> = {
   'column-max': ['.tif', '.tiff'],
   'cell-table': ['.csv', '.txt'],
   'scan-inventory': ['.csv', '.txt'],
+  'anomaly-grid': ['.tif', '.tiff'],
 };
+
+/** The units a file may state for an anomaly grid (IntakeRequest.units). */
+export type AnomalyUnit = NonNullable<IntakeRequest['units']>;
+
+export const ANOMALY_VARIABLE_LABELS: Record<AnomalyVariable, string> = {
+  q: 'Specific humidity anomaly',
+  u: 'Eastward wind anomaly',
+  v: 'Northward wind anomaly',
+};
+
+export const ANOMALY_UNIT_LABELS: Record<AnomalyUnit, string> = {
+  'g/kg': 'g/kg',
+  'kg/kg': 'kg/kg',
+  'm/s': 'm/s',
+  kt: 'knots',
+};
+
+/** The units that fit a variable; all of them while the variable is left to the file. */
+export function unitsFor(variable: AnomalyVariable | null): AnomalyUnit[] {
+  if (variable === 'q') return ['g/kg', 'kg/kg'];
+  if (variable === 'u' || variable === 'v') return ['m/s', 'kt'];
+  return ['g/kg', 'kg/kg', 'm/s', 'kt'];
+}
 
 export function isGeoTiffKind(kind: IntakeKind): boolean {
   return kind === 'volume' || kind === 'column-max';
@@ -34,6 +59,9 @@ export interface IntakeDraft {
   timePattern: string;
   /** Cell tables only; null until the mapping step is complete. */
   mapping: CellTableMapping | null;
+  /** Anomaly grids only; null leaves it to the file's metadata. */
+  variable?: AnomalyVariable | null;
+  units?: AnomalyUnit | null;
 }
 
 /** The tokens a time pattern may use (IntakeRequest.timePattern). */
@@ -71,6 +99,10 @@ export function buildIntakeForm(draft: IntakeDraft): FormData {
   if (draft.kind === 'cell-table' && draft.mapping) form.append('mapping', JSON.stringify(draft.mapping));
   if (isGeoTiffKind(draft.kind) && draft.timePattern.trim() !== '') {
     form.append('timePattern', draft.timePattern.trim());
+  }
+  if (draft.kind === 'anomaly-grid') {
+    if (draft.variable) form.append('variable', draft.variable);
+    if (draft.units) form.append('units', draft.units);
   }
   return form;
 }

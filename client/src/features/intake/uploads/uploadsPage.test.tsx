@@ -156,4 +156,42 @@ describe('Intake › Uploads & jobs', () => {
     await userEvent.click(within(table).getByRole('button', { name: /Started/ }));
     await waitFor(() => expect(jobIds()).toEqual(['Job 11', 'Job 12']));
   });
+  it('asks an anomaly grid’s variable and units, both optional, and sends them', async () => {
+    const { server } = renderUploads({
+      'POST /api/intake': { status: 202, body: aJob({ kind: 'anomaly-grid' }) },
+    });
+    await userEvent.selectOptions(
+      await screen.findByLabelText('Kind of files'),
+      'Anomaly grids (GeoTIFF, one band per day)',
+    );
+    const variable = screen.getByLabelText('Variable') as HTMLSelectElement;
+    const units = screen.getByLabelText('Units in the file') as HTMLSelectElement;
+    expect(variable.value).toBe('');
+    expect(
+      within(units)
+        .getAllByRole('option')
+        .map((o) => o.textContent),
+    ).toEqual(["From the file's metadata", 'g/kg', 'kg/kg', 'm/s', 'knots']);
+    await userEvent.selectOptions(units, 'kg/kg');
+    // Winds are not in kg/kg: the choice goes back to the file's own.
+    await userEvent.selectOptions(variable, 'Eastward wind anomaly');
+    expect(units.value).toBe('');
+    expect(
+      within(units)
+        .getAllByRole('option')
+        .map((o) => o.textContent),
+    ).toEqual(["From the file's metadata", 'm/s', 'knots']);
+    await userEvent.selectOptions(units, 'knots');
+    await userEvent.upload(
+      screen.getByLabelText('Choose files'),
+      new File(['II*'], 'u850_2026.tif', { type: 'image/tiff' }),
+    );
+    await userEvent.click(screen.getByRole('button', { name: 'Upload' }));
+    await waitFor(() => expect(server.calls.some((c) => c.path === '/api/intake')).toBe(true));
+    const form = server.calls.find((c) => c.path === '/api/intake')?.body as FormData;
+    expect(form.get('kind')).toBe('anomaly-grid');
+    expect(form.get('variable')).toBe('u');
+    expect(form.get('units')).toBe('kt');
+    expect(form.get('timePattern')).toBeNull();
+  });
 });

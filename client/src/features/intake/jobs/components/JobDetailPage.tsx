@@ -60,6 +60,8 @@ function JobDetail({ id }: { id: number }) {
             minAvailability={site?.settings.minAvailability ?? DEFAULT_SITE_SETTINGS.minAvailability}
           />
         </RegionBoundary>
+      ) : data.summary ? (
+        <p>{data.summary}</p>
       ) : (
         <p>{isActive(data) ? 'The report appears when the job is done.' : 'This job has no report.'}</p>
       )}

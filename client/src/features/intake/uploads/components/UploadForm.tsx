@@ -8,7 +8,13 @@ import {
   SelectItem,
   TextInput,
 } from '@carbon/react';
-import { INTAKE_KINDS, type IntakeKind, type SiteView } from '@stormhour/shared';
+import {
+  ANOMALY_VARIABLES,
+  type AnomalyVariable,
+  INTAKE_KINDS,
+  type IntakeKind,
+  type SiteView,
+} from '@stormhour/shared';
 import { useId, useState } from 'react';
 import { LoadError } from '../../../../components/LoadError';
 import { ApiError, messageOf } from '../../../../lib/apiError';
@@ -18,12 +24,16 @@ import { useSites } from '../../sites/api';
 import { offsetForMapping } from '../../siteTime';
 import { toMapping } from '../cellTableMapping';
 import {
+  ANOMALY_UNIT_LABELS,
+  ANOMALY_VARIABLE_LABELS,
+  type AnomalyUnit,
   buildIntakeForm,
   fitsKind,
   type IntakeDraft,
   isGeoTiffKind,
   KIND_LABELS,
   type OnError,
+  unitsFor,
   uploadBlockers,
 } from '../intakeRequest';
 import { ColumnMappingStep } from './ColumnMappingStep';
@@ -68,6 +78,46 @@ function SiteAndKind(props: {
   );
 }
 
+/** For anomaly grids whose metadata does not say: which field the files hold and in what units. */
+function AnomalyFields(props: {
+  variable: AnomalyVariable | null;
+  units: AnomalyUnit | null;
+  disabled: boolean;
+  onVariable: (variable: AnomalyVariable | null) => void;
+  onUnits: (units: AnomalyUnit | null) => void;
+}) {
+  return (
+    <div className="upload-form__row">
+      <Select
+        id="upload-variable"
+        labelText="Variable"
+        helperText="Only needed when the file's metadata does not name it."
+        value={props.variable ?? ''}
+        disabled={props.disabled}
+        onChange={(e) => props.onVariable((e.target.value || null) as AnomalyVariable | null)}
+      >
+        <SelectItem value="" text="From the file's metadata" />
+        {ANOMALY_VARIABLES.map((v) => (
+          <SelectItem key={v} value={v} text={ANOMALY_VARIABLE_LABELS[v]} />
+        ))}
+      </Select>
+      <Select
+        id="upload-units"
+        labelText="Units in the file"
+        helperText="Converted to g/kg and m/s on intake."
+        value={props.units ?? ''}
+        disabled={props.disabled}
+        onChange={(e) => props.onUnits((e.target.value || null) as AnomalyUnit | null)}
+      >
+        <SelectItem value="" text="From the file's metadata" />
+        {unitsFor(props.variable).map((u) => (
+          <SelectItem key={u} value={u} text={ANOMALY_UNIT_LABELS[u]} />
+        ))}
+      </Select>
+    </div>
+  );
+}
+
 /** Site, kind, files and options; for cell tables the column mapping; then upload and follow the job. */
 export function UploadForm() {
   const sites = useSites();
@@ -77,6 +127,8 @@ export function UploadForm() {
   const [files, setFiles] = useState<File[]>([]);
   const [onError, setOnError] = useState<OnError>('skip');
   const [timePattern, setTimePattern] = useState('');
+  const [variable, setVariable] = useState<AnomalyVariable | null>(null);
+  const [units, setUnits] = useState<AnomalyUnit | null>(null);
   const [fraction, setFraction] = useState(0);
   const upload = useStartIntake(setFraction);
 
@@ -91,6 +143,8 @@ export function UploadForm() {
     files,
     onError,
     timePattern,
+    variable,
+    units,
     mapping: mapping.draft && mapping.problems.length === 0 ? toMapping(mapping.draft) : null,
   };
   const blockers = uploadBlockers(draft, mapping.problems);
@@ -141,6 +195,19 @@ export function UploadForm() {
           value={timePattern}
           disabled={busy}
           onChange={(e) => setTimePattern(e.target.value)}
+        />
+      ) : null}
+      {kind === 'anomaly-grid' ? (
+        <AnomalyFields
+          variable={variable}
+          units={units}
+          disabled={busy}
+          onVariable={(next) => {
+            setVariable(next);
+            // Units of another variable no longer apply.
+            if (units && !unitsFor(next).includes(units)) setUnits(null);
+          }}
+          onUnits={setUnits}
         />
       ) : null}
       {csvFile && mapping.preview && mapping.draft ? (

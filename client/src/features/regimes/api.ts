@@ -1,0 +1,59 @@
+import type { RegimeComposite, RegimesResponse } from '@stormhour/shared';
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '../../config/paths';
+import { request } from '../../lib/api';
+import { withQuery } from '../../lib/queryString';
+
+/** The site and the local days (YYYY-MM-DD, both included) the regimes are read for; empty days mean "all". */
+export interface RegimesParams {
+  siteId: number;
+  from: string | null;
+  to: string | null;
+}
+
+export interface CompositeParams extends RegimesParams {
+  regime: string;
+}
+
+export const regimeKeys = {
+  all: ['regimes'] as const,
+  days: (params: RegimesParams) => ['regimes', 'days', params] as const,
+  composite: (params: CompositeParams) => ['regimes', 'composite', params] as const,
+};
+
+export function fetchRegimes(params: RegimesParams): Promise<RegimesResponse> {
+  return request<RegimesResponse>(
+    withQuery(api.regimes, { siteId: params.siteId, from: params.from, to: params.to }),
+  );
+}
+export function getRegimesQueryOptions(params: RegimesParams) {
+  return queryOptions({ queryKey: regimeKeys.days(params), queryFn: () => fetchRegimes(params) });
+}
+export function useRegimes(params: RegimesParams | null) {
+  return useQuery({
+    ...getRegimesQueryOptions(params ?? { siteId: 0, from: null, to: null }),
+    enabled: params !== null,
+  });
+}
+
+export function fetchComposite(params: CompositeParams): Promise<RegimeComposite> {
+  return request<RegimeComposite>(
+    withQuery(api.regimeComposite, {
+      siteId: params.siteId,
+      regime: params.regime,
+      from: params.from,
+      to: params.to,
+    }),
+  );
+}
+export function getCompositeQueryOptions(params: CompositeParams) {
+  return queryOptions({ queryKey: regimeKeys.composite(params), queryFn: () => fetchComposite(params) });
+}
+export function useComposite(params: CompositeParams | null) {
+  return useQuery({
+    ...getCompositeQueryOptions(params ?? { siteId: 0, from: null, to: null, regime: '' }),
+    enabled: params !== null,
+    // The previous map stays while the next regime loads, so the page does not jump.
+    placeholderData: keepPreviousData,
+  });
+}
