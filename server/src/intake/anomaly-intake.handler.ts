@@ -1,11 +1,10 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { AnomalyVariable } from '@stormhour/shared';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
-import type { JobFile, JobProblem } from '../jobs/job-problem.js';
 import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
 import { AnomaliesRepository } from '../regimes/anomalies.repository.js';
-import { type AnomalyFile, type AnomalyUnits, readAnomalyTiff } from './anomaly-reader.js';
-import { FileProblem } from './geotiff-reader.js';
+import { type AnomalyUnits, readAnomalyTiff } from './anomaly-reader.js';
+import { readEveryFile } from './read-phase.js';
 import { UploadStore } from './upload-store.js';
 import { UploadsRepository } from './uploads.repository.js';
 
@@ -21,48 +20,20 @@ export interface AnomalyIntakeParams {
 /** Anomaly grids through the shared intake: every file read first, then each stored in one transaction. */
 @Injectable()
 export class AnomalyIntakeHandler {
-  private readonly store: UploadStore;
+  readonly store: UploadStore;
 
   constructor(
     @Inject(APP_CONFIG) config: AppConfig,
-    private readonly uploads: UploadsRepository,
+    readonly uploads: UploadsRepository,
     private readonly anomalies: AnomaliesRepository,
   ) {
     this.store = new UploadStore(config.filesDir);
   }
 
   async run(p: AnomalyIntakeParams, ctx: JobContext): Promise<JobOutcome> {
-    const files: JobFile[] = p.files.map((f) => ({
-      uploadId: f.uploadId,
-      fileName: f.fileName,
-      sizeBytes: 0,
-      duplicate: f.duplicate,
-      state: f.duplicate ? 'duplicate' : 'waiting',
-    }));
-    const problems: JobProblem[] = [];
-    const parsed = new Map<number, AnomalyFile>();
-    const todo = files.filter((f) => !f.duplicate);
-    for (const [n, f] of todo.entries()) {
-      await ctx.progress((0.5 * n) / todo.length, `Reading ${f.fileName}`);
-      const upload = await this.uploads.find(f.uploadId);
-      if (!upload) throw new Error(`upload ${f.uploadId} vanished`);
-      f.sizeBytes = upload.sizeBytes;
-      try {
-        parsed.set(f.uploadId, await readAnomalyTiff(await this.store.read(upload.sha256), p));
-      } catch (e) {
-        if (!(e instanceof FileProblem)) throw e;
-        for (const one of e.all) problems.push({ file: f.fileName, ...one });
-        f.state = p.onError === 'fail' ? 'failed' : 'skipped';
-        if (p.onError === 'fail') {
-          await ctx.setFiles(files);
-          return {
-            result: {},
-            problems,
-            error: `${f.fileName} has problems, so the job stopped as asked and nothing was stored.`,
-          };
-        }
-      }
-    }
+    const read = await readEveryFile(p.files, p.onError, ctx, this, (content) => readAnomalyTiff(content, p));
+    if (read.stopped) return read.stopped;
+    const { files, todo, parsed, problems } = read;
     const summary: string[] = [];
     for (const [n, f] of todo.entries()) {
       const file = parsed.get(f.uploadId);

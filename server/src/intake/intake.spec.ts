@@ -174,7 +174,7 @@ describe('radar intake of cell tables and inventories', () => {
     expect(badKind.status).toBe(400);
     expect(badKind.body.details[0]).toMatchObject({
       where: 'kind',
-      problem: 'kind must be one of volume, column-max, cell-table, scan-inventory',
+      problem: 'kind must be one of volume, column-max, cell-table, scan-inventory, anomaly-grid',
     });
     const badMapping = await upload('cell-table', [['y.csv', table]], { mapping: '{"columns":{"area":""}}' });
     expect(badMapping.status).toBe(400);

@@ -8,7 +8,6 @@ import {
 } from '@stormhour/shared';
 import proj4 from 'proj4';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
-import type { JobFile, JobProblem } from '../jobs/job-problem.js';
 import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
 import { identifyCells } from '../radar/engine/identify.js';
 import { sitePlane } from '../radar/engine/site-plane.js';
@@ -26,6 +25,7 @@ import {
   withinCoverage,
 } from './prepare-cells.js';
 import { buildReport } from './quality-report.js';
+import { readEveryFile } from './read-phase.js';
 import { UploadStore } from './upload-store.js';
 import { UploadsRepository } from './uploads.repository.js';
 
@@ -55,12 +55,12 @@ type Parsed =
  */
 @Injectable()
 export class RadarIntakeHandler {
-  private readonly store: UploadStore;
+  readonly store: UploadStore;
 
   constructor(
     @Inject(APP_CONFIG) config: AppConfig,
     private readonly sites: SitesRepository,
-    private readonly uploads: UploadsRepository,
+    readonly uploads: UploadsRepository,
     private readonly radar: RadarDataService,
   ) {
     this.store = new UploadStore(config.filesDir);
@@ -75,42 +75,11 @@ export class RadarIntakeHandler {
       settings,
       intervalMs: site.intervalMin * 60_000,
     };
-    const files: JobFile[] = p.files.map((f) => ({
-      uploadId: f.uploadId,
-      fileName: f.fileName,
-      sizeBytes: 0,
-      duplicate: f.duplicate,
-      state: f.duplicate ? 'duplicate' : 'waiting',
-    }));
-    const problems: JobProblem[] = [];
-    const parsed = new Map<number, Parsed>();
-    const todo = files.filter((f) => !f.duplicate);
-
-    for (const [n, f] of todo.entries()) {
-      await ctx.progress((0.5 * n) / todo.length, `Reading ${f.fileName} (${n + 1} of ${todo.length})`);
-      const upload = await this.uploads.find(f.uploadId);
-      if (!upload) throw new Error(`upload ${f.uploadId} vanished`);
-      f.sizeBytes = upload.sizeBytes;
-      try {
-        parsed.set(
-          f.uploadId,
-          await this.parse(p, siteCtx, f.fileName, await this.store.read(upload.sha256)),
-        );
-      } catch (e) {
-        if (!(e instanceof FileProblem)) throw e;
-        for (const one of e.all) problems.push({ file: f.fileName, ...one });
-        f.state = p.onError === 'fail' ? 'failed' : 'skipped';
-        if (p.onError === 'fail') {
-          await ctx.setFiles(files);
-          return {
-            result: {},
-            problems,
-            error: `${f.fileName} has problems, so the job stopped as asked and nothing was stored.`,
-          };
-        }
-      }
-    }
-    await ctx.setFiles(files);
+    const read = await readEveryFile(p.files, p.onError, ctx, this, (content, fileName) =>
+      this.parse(p, siteCtx, fileName, content),
+    );
+    if (read.stopped) return read.stopped;
+    const { files, todo, parsed, problems } = read;
 
     const locator = await this.radar.blockLocator();
     // An inventory changes how cell-table starts are judged; the other kinds judge their own.
