@@ -3,6 +3,7 @@ import type { AnomalyVariable } from '@stormhour/shared';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
 import { AnomaliesRepository } from '../regimes/anomalies.repository.js';
+import { parseAnomalyCsv } from './anomaly-csv.js';
 import { type AnomalyUnits, readAnomalyTiff } from './anomaly-reader.js';
 import { readEveryFile } from './read-phase.js';
 import { UploadStore } from './upload-store.js';
@@ -31,37 +32,48 @@ export class AnomalyIntakeHandler {
   }
 
   async run(p: AnomalyIntakeParams, ctx: JobContext): Promise<JobOutcome> {
-    const read = await readEveryFile(p.files, p.onError, ctx, this, (content) => readAnomalyTiff(content, p));
+    // A TIFF starts with II* or MM*; anything else is taken as long-form CSV.
+    const isTiff = (c: Buffer) =>
+      c.length > 4 && (c.toString('latin1', 0, 2) === 'II' || c.toString('latin1', 0, 2) === 'MM');
+    const read = await readEveryFile(p.files, p.onError, ctx, this, async (content) =>
+      isTiff(content)
+        ? [await readAnomalyTiff(content, p)]
+        : parseAnomalyCsv(content.toString('utf8'), p.units),
+    );
     if (read.stopped) return read.stopped;
     const { files, todo, parsed, problems } = read;
     const summary: string[] = [];
     for (const [n, f] of todo.entries()) {
-      const file = parsed.get(f.uploadId);
-      if (!file) continue;
+      const fields = parsed.get(f.uploadId);
+      if (!fields) continue;
       await ctx.progress(0.5 + (0.5 * n) / todo.length, `Storing ${f.fileName}`);
+      // Every field of a file, or none of them.
       await this.anomalies.transaction(async (tx) => {
         await this.uploads.markImported(f.uploadId, tx);
-        for (const day of file.days) {
-          await this.anomalies.upsert(
-            {
-              uploadId: f.uploadId,
-              variable: file.variable,
-              levelHpa: file.levelHpa,
-              date: day.date,
-              ...file.grid,
-              values: Buffer.from(day.values.buffer, day.values.byteOffset, day.values.byteLength),
-              sourceFile: f.fileName,
-            },
-            tx,
-          );
-        }
+        for (const file of fields)
+          for (const day of file.days) {
+            await this.anomalies.upsert(
+              {
+                uploadId: f.uploadId,
+                variable: file.variable,
+                levelHpa: file.levelHpa,
+                date: day.date,
+                ...file.grid,
+                values: Buffer.from(day.values.buffer, day.values.byteOffset, day.values.byteLength),
+                sourceFile: f.fileName,
+              },
+              tx,
+            );
+          }
       });
       f.state = 'imported';
-      const first = file.days[0]?.date;
-      const last = file.days[file.days.length - 1]?.date;
-      summary.push(
-        `${f.fileName}: ${file.variable} at ${file.levelHpa} hPa, ${file.days.length} days ${first}–${last}, ${file.conversion}`,
-      );
+      for (const file of fields) {
+        const first = file.days[0]?.date;
+        const last = file.days[file.days.length - 1]?.date;
+        summary.push(
+          `${f.fileName}: ${file.variable} at ${file.levelHpa} hPa, ${file.days.length} days ${first}–${last}, ${file.conversion}`,
+        );
+      }
     }
     await ctx.setFiles(files);
     return { result: { summary: summary.join('; ') }, problems };

@@ -5,7 +5,7 @@ export const KIND_LABELS: Record<IntakeKind, string> = {
   'column-max': 'Column-maximum fields (GeoTIFF)',
   'cell-table': 'Cell table (CSV)',
   'scan-inventory': 'Scan inventory (CSV)',
-  'anomaly-grid': 'Anomaly grids (GeoTIFF, one band per day)',
+  'anomaly-grid': 'Anomaly grids (GeoTIFF one band per day, or long-form CSV)',
 };
 
 /** File-name endings each kind takes. */
@@ -14,7 +14,7 @@ export const KIND_EXTENSIONS: Record<IntakeKind, string[]> = {
   'column-max': ['.tif', '.tiff'],
   'cell-table': ['.csv', '.txt'],
   'scan-inventory': ['.csv', '.txt'],
-  'anomaly-grid': ['.tif', '.tiff'],
+  'anomaly-grid': ['.tif', '.tiff', '.csv'],
 };
 
 /** The units a file may state for an anomaly grid (IntakeRequest.units). */

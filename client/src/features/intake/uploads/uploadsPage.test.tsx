@@ -162,7 +162,7 @@ describe('Intake › Uploads & jobs', () => {
     });
     await userEvent.selectOptions(
       await screen.findByLabelText('Kind of files'),
-      'Anomaly grids (GeoTIFF, one band per day)',
+      'Anomaly grids (GeoTIFF one band per day, or long-form CSV)',
     );
     const variable = screen.getByLabelText('Variable') as HTMLSelectElement;
     const units = screen.getByLabelText('Units in the file') as HTMLSelectElement;
