@@ -12,6 +12,8 @@ const Period = z.object({
   siteId: z.coerce.number().int().positive(),
   from: day.optional(),
   to: day.optional(),
+  /** Average over this district's blocks instead of the radar coverage. */
+  districtId: z.coerce.number().int().positive().optional(),
 });
 const CompositeQuery = Period.extend({
   regime: z.string().trim().min(1, 'Name the regime, e.g. "moist / onshore"'),
@@ -27,13 +29,13 @@ export class RegimesController {
   @Get()
   @Roles('scientist', 'writer')
   list(@Query(zodQuery(Period)) q: z.infer<typeof Period>) {
-    return this.regimes.regimes(q.siteId, q.from, q.to);
+    return this.regimes.regimes(q.siteId, q.from, q.to, q.districtId);
   }
 
   @Get('composite')
   @Roles('scientist', 'writer')
   composite(@Query(zodQuery(CompositeQuery)) q: z.infer<typeof CompositeQuery>) {
-    return this.regimes.composite(q.siteId, q.regime, q.from, q.to);
+    return this.regimes.composite(q.siteId, q.regime, q.from, q.to, q.districtId);
   }
 
   @Get('settings')

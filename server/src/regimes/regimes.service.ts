@@ -7,9 +7,11 @@ import {
   type SessionUser,
 } from '@stormhour/shared';
 import { AuditService } from '../audit/audit.service.js';
+import { BlockLocator } from '../radar/engine/block-locator.js';
 import { isCovered } from '../radar/engine/coverage.js';
 import { distanceAndAzimuth } from '../radar/engine/site-plane.js';
 import { SitesService } from '../radar/sites.service.js';
+import { RegionsRepository } from '../regions/regions.repository.js';
 import { AnomaliesRepository, type StoredField } from './anomalies.repository.js';
 import {
   cellLat,
@@ -37,6 +39,7 @@ export class RegimesService {
     private readonly anomalies: AnomaliesRepository,
     private readonly sites: SitesService,
     private readonly audit: AuditService,
+    private readonly regions: RegionsRepository,
   ) {}
 
   async settings(siteId: number): Promise<{ version: number; settings: RegimeSettings }> {
@@ -54,9 +57,9 @@ export class RegimesService {
     return { version, settings };
   }
 
-  async regimes(siteId: number, from?: string, to?: string): Promise<RegimesResponse> {
+  async regimes(siteId: number, from?: string, to?: string, districtId?: number): Promise<RegimesResponse> {
     const { settings } = await this.settings(siteId);
-    const { days, bounds } = await this.classify(siteId, settings, from, to);
+    const { days, bounds } = await this.classify(siteId, settings, from, to, districtId);
     const counts = new Map<string, number>();
     for (const d of days) if (d.regime) counts.set(d.regime, (counts.get(d.regime) ?? 0) + 1);
     return {
@@ -69,9 +72,15 @@ export class RegimesService {
   }
 
   /** Mean anomaly fields over the days of one regime, cell by cell. */
-  async composite(siteId: number, regime: string, from?: string, to?: string): Promise<RegimeComposite> {
+  async composite(
+    siteId: number,
+    regime: string,
+    from?: string,
+    to?: string,
+    districtId?: number,
+  ): Promise<RegimeComposite> {
     const { settings } = await this.settings(siteId);
-    const { days } = await this.classify(siteId, settings, from, to);
+    const { days } = await this.classify(siteId, settings, from, to, districtId);
     const chosen = days.filter((d) => d.regime === regime);
     if (chosen.length === 0) {
       throw new BadRequestException({
@@ -111,8 +120,37 @@ export class RegimesService {
     };
   }
 
-  private async classify(siteId: number, settings: RegimeSettings, from?: string, to?: string) {
+  /**
+   * The domain is the site's coverage, or a district's blocks when one is named: the grid cells whose
+   * centre lies inside. A district smaller than a grid cell may hold no centre at all; say so.
+   */
+  private async domain(siteId: number, districtId?: number): Promise<(lat: number, lon: number) => boolean> {
     const site = await this.sites.get(siteId);
+    if (districtId === undefined) {
+      return (lat, lon) => {
+        const { km, azimuthDeg } = distanceAndAzimuth(site, { lat, lon });
+        return isCovered(site, km, azimuthDeg);
+      };
+    }
+    const blocks = await this.regions.listBlocksWithGeometry({ districtId });
+    if (blocks.length === 0) {
+      throw new BadRequestException({
+        message: `District ${districtId} has no blocks to average over.`,
+        details: [{ where: 'districtId', problem: 'no blocks' }],
+      });
+    }
+    const locator = new BlockLocator(blocks.map((b) => ({ id: b.id, bbox: b.bbox, geometry: b.geometry })));
+    return (lat, lon) => locator.locate(lon, lat) !== null;
+  }
+
+  private async classify(
+    siteId: number,
+    settings: RegimeSettings,
+    from?: string,
+    to?: string,
+    districtId?: number,
+  ) {
+    const inDomain = await this.domain(siteId, districtId);
     const byDate = new Map<string, DayFields>();
     for (const f of await this.anomalies.fields(LEVEL_HPA, from, to)) {
       const day = byDate.get(f.date) ?? {};
@@ -126,10 +164,7 @@ export class RegimesService {
       if (!mask) {
         mask = new Uint8Array(g.nx * g.ny);
         for (let j = 0; j < g.ny; j++)
-          for (let i = 0; i < g.nx; i++) {
-            const { km, azimuthDeg } = distanceAndAzimuth(site, { lat: cellLat(g, j), lon: cellLon(g, i) });
-            mask[j * g.nx + i] = isCovered(site, km, azimuthDeg) ? 1 : 0;
-          }
+          for (let i = 0; i < g.nx; i++) mask[j * g.nx + i] = inDomain(cellLat(g, j), cellLon(g, i)) ? 1 : 0;
         masks.set(key, mask);
       }
       return mask;

@@ -149,4 +149,32 @@ describe('anomaly intake and regimes', () => {
     const same = after.filter((d, i) => d.regime === before[i].regime).length;
     expect(same).toBeGreaterThanOrEqual(118);
   });
+
+  it('averages over a district’s blocks when one is named', async () => {
+    const admin = { Authorization: `Bearer ${await t.signedIn('admin')}` };
+    await t.http
+      .post('/api/blocks/import')
+      .set(admin)
+      .attach('file', join(demo, 'blocks.geojson'))
+      .expect(201);
+    const districts = (await t.http.get('/api/districts').set(auth)).body as { id: number; code: string }[];
+    const hillfoot = districts.find((d) => d.code === 'HLF') as { id: number };
+    const whole = (await t.http.get(`/api/regimes?siteId=${siteId}`).set(auth)).body.days as { q: number }[];
+    const part = (
+      await t.http.get(`/api/regimes?siteId=${siteId}&districtId=${hillfoot.id}`).set(auth).expect(200)
+    ).body.days as { q: number; coverage: number }[];
+    expect(part).toHaveLength(122);
+    expect(part[0].coverage).toBe(1);
+    expect(part.some((d, i) => Math.abs(d.q - whole[i].q) > 1e-6)).toBe(true);
+    const empty = await t.http
+      .post('/api/districts')
+      .set(admin)
+      .send({ code: 'EMP', name: 'Empty' })
+      .expect(201);
+    const res = await t.http
+      .get(`/api/regimes?siteId=${siteId}&districtId=${empty.body.id}`)
+      .set(auth)
+      .expect(400);
+    expect(res.body.message).toMatch(/has no blocks to average over/);
+  });
 });
