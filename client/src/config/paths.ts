@@ -70,4 +70,5 @@ export const api = {
   cells: '/api/cells',
   regimes: '/api/regimes',
   regimeComposite: '/api/regimes/composite',
+  regimeSettings: '/api/regimes/settings',
 } as const;

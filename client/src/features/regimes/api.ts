@@ -1,5 +1,5 @@
-import type { RegimeComposite, RegimesResponse } from '@stormhour/shared';
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { RegimeComposite, RegimeSettings, RegimesResponse } from '@stormhour/shared';
+import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../config/paths';
 import { request } from '../../lib/api';
 import { withQuery } from '../../lib/queryString';
@@ -19,6 +19,7 @@ export const regimeKeys = {
   all: ['regimes'] as const,
   days: (params: RegimesParams) => ['regimes', 'days', params] as const,
   composite: (params: CompositeParams) => ['regimes', 'composite', params] as const,
+  settings: (siteId: number) => ['regimes', 'settings', siteId] as const,
 };
 
 export function fetchRegimes(params: RegimesParams): Promise<RegimesResponse> {
@@ -55,5 +56,33 @@ export function useComposite(params: CompositeParams | null) {
     enabled: params !== null,
     // The previous map stays while the next regime loads, so the page does not jump.
     placeholderData: keepPreviousData,
+  });
+}
+
+/** A site's regime settings; each save makes a new version. */
+export interface VersionedRegimeSettings {
+  version: number;
+  settings: RegimeSettings;
+}
+
+export function fetchRegimeSettings(siteId: number): Promise<VersionedRegimeSettings> {
+  return request<VersionedRegimeSettings>(withQuery(api.regimeSettings, { siteId }));
+}
+export function getRegimeSettingsQueryOptions(siteId: number) {
+  return queryOptions({ queryKey: regimeKeys.settings(siteId), queryFn: () => fetchRegimeSettings(siteId) });
+}
+export function useRegimeSettings(siteId: number) {
+  return useQuery(getRegimeSettingsQueryOptions(siteId));
+}
+
+export function updateRegimeSettings(siteId: number, body: RegimeSettings): Promise<VersionedRegimeSettings> {
+  return request<VersionedRegimeSettings>(withQuery(api.regimeSettings, { siteId }), { method: 'PUT', body });
+}
+export function useUpdateRegimeSettings(siteId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: RegimeSettings) => updateRegimeSettings(siteId, body),
+    // New settings classify every day again: the calendar, counts and composites all change.
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: regimeKeys.all }),
   });
 }

@@ -213,6 +213,63 @@ describe('Regimes', () => {
       ).toBe('2'),
     );
   });
+
+  it('saves the regime settings after the schema accepts them, and reclassifies the days', async () => {
+    let version = 3;
+    const { server } = renderRegimes(aResponse(), {
+      'GET /api/regimes/settings': () => ({ body: { version, settings } }),
+      'PUT /api/regimes/settings': (req) => {
+        version += 1;
+        return { body: { version, settings: req.body } };
+      },
+    });
+    await screen.findByRole('group', { name: 'Season calendar' });
+    const readsBefore = server.calls.filter((c) => c.path === '/api/regimes').length;
+    await userEvent.click(screen.getByRole('button', { name: 'Edit regime settings' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Regime settings' });
+    expect(server.calls.find((c) => c.path === '/api/regimes/settings')?.query.get('siteId')).toBe('1');
+    await within(dialog).findByLabelText('Sector 1 name');
+
+    await userEvent.click(within(dialog).getByLabelText('Fixed bounds'));
+    const dry = within(dialog).getByLabelText('Dry bound (g/kg)');
+    const moist = within(dialog).getByLabelText('Moist bound (g/kg)');
+    await userEvent.clear(dry);
+    await userEvent.type(dry, '0.6');
+    await userEvent.click(within(dialog).getByRole('button', { name: 'Save settings' }));
+    expect(await within(dialog).findByText('The dry bound must be below the moist bound')).toBeTruthy();
+    expect(moist.getAttribute('aria-invalid')).toBe('true');
+    expect(server.calls.some((c) => c.method === 'PUT')).toBe(false);
+
+    await userEvent.clear(dry);
+    await userEvent.type(dry, '-0.4');
+    await userEvent.clear(within(dialog).getByLabelText('Weak wind below (m/s)'));
+    await userEvent.type(within(dialog).getByLabelText('Weak wind below (m/s)'), '1.5');
+    await userEvent.click(within(dialog).getByRole('button', { name: 'Remove sector 4' }));
+    await userEvent.click(within(dialog).getByRole('button', { name: 'Add a sector' }));
+    await userEvent.type(within(dialog).getByLabelText('Sector 4 name'), 'northerly');
+    await userEvent.type(within(dialog).getByLabelText('Sector 4 from (°)'), '10');
+    await userEvent.type(within(dialog).getByLabelText('Sector 4 to (°)'), '100');
+    await userEvent.click(within(dialog).getByRole('button', { name: 'Save settings' }));
+
+    expect(await screen.findByText('Saved as version 4; the days are classified again.')).toBeTruthy();
+    const put = server.calls.find((c) => c.method === 'PUT');
+    expect(put?.query.get('siteId')).toBe('1');
+    expect(put?.body).toEqual({
+      moistureMethod: 'fixed',
+      fixedBoundsGKg: [-0.4, 0.5],
+      weakBelowMs: 1.5,
+      sectors: [
+        { name: 'onshore', fromDeg: 100, toDeg: 190 },
+        { name: 'along-shore', fromDeg: 190, toDeg: 280 },
+        { name: 'offshore', fromDeg: 280, toDeg: 10 },
+        { name: 'northerly', fromDeg: 10, toDeg: 100 },
+      ],
+    });
+    await waitFor(() => expect(screen.queryByRole('dialog', { name: 'Regime settings' })).toBeNull());
+    await waitFor(() =>
+      expect(server.calls.filter((c) => c.path === '/api/regimes').length).toBeGreaterThan(readsBefore),
+    );
+  });
 });
 
 describe('regime helpers', () => {

@@ -4,6 +4,7 @@ import type {
   CreateDistrictRequest,
   DistrictView,
   UpdateBlockRequest,
+  UpdateDistrictRequest,
 } from '@stormhour/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { districtsKey } from '../../../api/districts';
@@ -37,6 +38,17 @@ export function createDistrict(body: CreateDistrictRequest): Promise<DistrictVie
 export function useCreateDistrict() {
   const invalidate = useInvalidateRegions();
   return useMutation({ mutationFn: createDistrict, onSuccess: invalidate });
+}
+
+export function renameDistrict(id: number, body: UpdateDistrictRequest): Promise<DistrictView> {
+  return request<DistrictView>(api.district(id), { method: 'PATCH', body });
+}
+export function useRenameDistrict() {
+  const invalidate = useInvalidateRegions();
+  return useMutation({
+    mutationFn: ({ id, body }: { id: number; body: UpdateDistrictRequest }) => renameDistrict(id, body),
+    onSuccess: invalidate,
+  });
 }
 
 export function updateBlock(id: number, body: UpdateBlockRequest): Promise<BlockView> {

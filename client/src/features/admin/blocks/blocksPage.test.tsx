@@ -158,4 +158,27 @@ describe('Admin › Districts & blocks', () => {
       expect(server.calls.find((c) => c.method === 'PATCH')?.body).toEqual({ districtId: 2 }),
     );
   });
+  it('renames a district and reloads the districts and blocks', async () => {
+    const { server } = renderBlocks({
+      'PATCH /api/districts/1': (req) => ({ body: { ...riverbend, ...(req.body as object) } }),
+    });
+    await userEvent.click(await screen.findByRole('button', { name: 'Rename Riverbend' }));
+    const dialog = await screen.findByRole('dialog');
+    const name = within(dialog).getByLabelText('Name');
+    await userEvent.clear(name);
+    await userEvent.click(within(dialog).getByRole('button', { name: 'Save' }));
+    expect(await within(dialog).findByText('Enter the district’s name')).toBeTruthy();
+    expect(server.calls.some((c) => c.method === 'PATCH')).toBe(false);
+
+    const reads = (path: string) => server.calls.filter((c) => c.method === 'GET' && c.path === path).length;
+    const before = { districts: reads('/api/districts'), blocks: reads('/api/blocks') };
+    await userEvent.type(name, 'Riverbend North');
+    await userEvent.click(within(dialog).getByRole('button', { name: 'Save' }));
+    await waitFor(() =>
+      expect(server.calls.find((c) => c.method === 'PATCH')?.body).toEqual({ name: 'Riverbend North' }),
+    );
+    await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
+    await waitFor(() => expect(reads('/api/districts')).toBeGreaterThan(before.districts));
+    expect(reads('/api/blocks')).toBeGreaterThan(before.blocks);
+  });
 });

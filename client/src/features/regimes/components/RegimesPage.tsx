@@ -1,14 +1,16 @@
-import { InlineLoading, Select, SelectItem, TextInput } from '@carbon/react';
+import { Button, InlineLoading, InlineNotification, Select, SelectItem, TextInput } from '@carbon/react';
 import type { RegimesResponse, SiteView } from '@stormhour/shared';
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router';
 import { LoadError } from '../../../components/LoadError';
+import { useSessionUser } from '../../../lib/auth';
 import { useSites } from '../../intake/sites/api';
 import { type RegimesParams, useRegimes } from '../api';
 import { hasAnomalyData, NO_DATA_COLOUR, regimeStyles } from '../regimeFormat';
 import { CompositeMap } from './CompositeMap';
 import { FlowScatter } from './FlowScatter';
 import { RegimeCounts } from './RegimeCounts';
+import { RegimeSettingsModal } from './RegimeSettingsModal';
 import { RegimeThresholds } from './RegimeThresholds';
 import { SeasonCalendar } from './SeasonCalendar';
 
@@ -47,6 +49,34 @@ function PeriodControls({
         value={params.to ?? ''}
         onChange={(e) => onChange({ to: e.target.value })}
       />
+    </div>
+  );
+}
+
+/** Scientists set how a site's days are classified; a save makes a new version and reclassifies them. */
+function SettingsControl({ siteId }: { siteId: number }) {
+  const [editing, setEditing] = useState(false);
+  const [saved, setSaved] = useState<{ siteId: number; version: number } | null>(null);
+  return (
+    <div className="regime-settings">
+      <Button kind="tertiary" size="sm" onClick={() => setEditing(true)}>
+        Edit regime settings
+      </Button>
+      {saved?.siteId === siteId ? (
+        <InlineNotification
+          kind="success"
+          lowContrast
+          title={`Saved as version ${saved.version}; the days are classified again.`}
+          onCloseButtonClick={() => setSaved(null)}
+        />
+      ) : null}
+      {editing ? (
+        <RegimeSettingsModal
+          siteId={siteId}
+          onSaved={(version) => setSaved({ siteId, version })}
+          onClose={() => setEditing(false)}
+        />
+      ) : null}
     </div>
   );
 }
@@ -128,6 +158,7 @@ function RegimesBody({
 }
 
 export default function RegimesPage() {
+  const user = useSessionUser();
   const sites = useSites();
   const [search, setSearch] = useSearchParams();
   const asked = Number(search.get('site'));
@@ -166,6 +197,7 @@ export default function RegimesPage() {
       {sites.isSuccess && params ? (
         <>
           <PeriodControls sites={sites.data} params={params} onChange={update} />
+          {user.role === 'scientist' ? <SettingsControl siteId={params.siteId} /> : null}
           {regimes.isPending ? <InlineLoading description="Loading the regimes" /> : null}
           {regimes.isError ? (
             <LoadError what="the regimes" error={regimes.error} onRetry={regimes.refetch} />

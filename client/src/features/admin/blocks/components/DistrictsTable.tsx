@@ -16,12 +16,19 @@ import { useDistricts } from '../../../../api/districts';
 import { LoadError } from '../../../../components/LoadError';
 import { formatArea } from '../blockList';
 import { AddDistrictModal } from './AddDistrictModal';
+import { RenameDistrictModal } from './RenameDistrictModal';
 
-function DistrictRows({ districts }: { districts: DistrictView[] }) {
+function DistrictRows({
+  districts,
+  onRename,
+}: {
+  districts: DistrictView[];
+  onRename: (district: DistrictView) => void;
+}) {
   if (districts.length === 0) {
     return (
       <TableRow>
-        <TableCell colSpan={4}>No districts yet. Add one, or import a blocks file that names them.</TableCell>
+        <TableCell colSpan={5}>No districts yet. Add one, or import a blocks file that names them.</TableCell>
       </TableRow>
     );
   }
@@ -31,6 +38,11 @@ function DistrictRows({ districts }: { districts: DistrictView[] }) {
       <TableCell>{d.name}</TableCell>
       <TableCell>{d.blockCount}</TableCell>
       <TableCell>{formatArea(d.areaKm2)}</TableCell>
+      <TableCell className="row-actions">
+        <Button kind="ghost" size="sm" aria-label={`Rename ${d.name}`} onClick={() => onRename(d)}>
+          Rename
+        </Button>
+      </TableCell>
     </TableRow>
   ));
 }
@@ -38,6 +50,7 @@ function DistrictRows({ districts }: { districts: DistrictView[] }) {
 export function DistrictsTable() {
   const districts = useDistricts();
   const [adding, setAdding] = useState(false);
+  const [renaming, setRenaming] = useState<DistrictView | null>(null);
   if (districts.isError)
     return <LoadError what="the districts" error={districts.error} onRetry={districts.refetch} />;
   return (
@@ -56,19 +69,23 @@ export function DistrictsTable() {
             <TableHeader>Name</TableHeader>
             <TableHeader>Blocks</TableHeader>
             <TableHeader>Area (km²)</TableHeader>
+            <TableHeader>
+              <span className="cds--visually-hidden">Actions</span>
+            </TableHeader>
           </TableRow>
         </TableHead>
         <TableBody>
           {districts.isPending ? (
             <TableRow>
-              <TableCell colSpan={4}>Loading districts…</TableCell>
+              <TableCell colSpan={5}>Loading districts…</TableCell>
             </TableRow>
           ) : (
-            <DistrictRows districts={districts.data} />
+            <DistrictRows districts={districts.data} onRename={setRenaming} />
           )}
         </TableBody>
       </Table>
       {adding ? <AddDistrictModal onClose={() => setAdding(false)} /> : null}
+      {renaming ? <RenameDistrictModal district={renaming} onClose={() => setRenaming(null)} /> : null}
     </TableContainer>
   );
 }
