@@ -51,6 +51,8 @@ describe('each demo role sees only its sections', () => {
     const nav = page.getByRole('navigation', { name: 'Sections' });
     const links = (await nav.getByRole('link').allInnerTexts()).map((s) => s.trim());
     expect(links).toEqual(sectionsFor(role).map((s) => SECTION_NAMES[s]));
+    // Every page carries the caution that these are not official warnings.
+    await page.getByText(/statistical guidance .* not official\s+warnings/).waitFor();
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.getByRole('button', { name: 'Sign in' }).waitFor();
     // Fonts and every asset ship with the app.

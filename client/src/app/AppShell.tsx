@@ -84,6 +84,12 @@ export function AppShell() {
             <Outlet />
           </Suspense>
         </RegionBoundary>
+        <footer className="app-caution">
+          Stormhour’s storm chances are statistical guidance from past radar and reanalysis data, not official
+          warnings: follow the national weather service and local authorities. Lightning can strike far from a
+          storm — when thunder is heard, go to a building or a closed vehicle. Farm advice defers to product
+          labels and licensed local advice.
+        </footer>
       </Content>
     </>
   );
