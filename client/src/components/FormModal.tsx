@@ -1,6 +1,8 @@
 import { InlineNotification, Modal, Stack } from '@carbon/react';
 import { type ReactNode, useState } from 'react';
+import type { z } from 'zod';
 import { ApiError, messageOf } from '../lib/apiError';
+import { fieldErrorsFromZod } from '../lib/fieldErrors';
 
 type FieldErrors = Record<string, string>;
 
@@ -22,7 +24,26 @@ export function useSaveAndClose(onClose: () => void) {
     }
   }
 
-  return { errors, setErrors, save };
+  /**
+   * Checks the values with the form's schema first: a refusal puts the schema's messages beside the
+   * fields and sends nothing. `send` gets the parsed values; it may return 'unchanged' to just close.
+   */
+  async function saveChecked<S extends z.ZodType>(
+    schema: S,
+    values: unknown,
+    send: (parsed: z.infer<S>) => Promise<unknown> | 'unchanged',
+  ) {
+    const parsed = schema.safeParse(values);
+    if (!parsed.success) {
+      setErrors(fieldErrorsFromZod(parsed.error));
+      return;
+    }
+    const sending = send(parsed.data);
+    if (sending === 'unchanged') onClose();
+    else await save(() => sending);
+  }
+
+  return { errors, setErrors, save, saveChecked };
 }
 
 interface FormModalProps {

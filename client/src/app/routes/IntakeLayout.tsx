@@ -1,6 +1,4 @@
-import { Tab, TabList, Tabs } from '@carbon/react';
-import { Suspense } from 'react';
-import { Outlet, useLocation, useNavigate } from 'react-router';
+import { TabbedSection } from '../../components/TabbedSection';
 import { paths } from '../../config/paths';
 
 const INTAKE_PAGES = [
@@ -16,28 +14,6 @@ function tabIndexOf(pathname: string): number {
   return 0;
 }
 
-/** Intake's own sub-navigation: each tab is a route, so pages can be linked and reloaded. */
 export default function IntakeLayout() {
-  const { pathname } = useLocation();
-  const navigate = useNavigate();
-  return (
-    <>
-      <h1 className="page-title">Intake</h1>
-      <div className="admin-tabs">
-        <Tabs
-          selectedIndex={tabIndexOf(pathname)}
-          onChange={({ selectedIndex }) => navigate(INTAKE_PAGES[selectedIndex].path)}
-        >
-          <TabList aria-label="Intake pages">
-            {INTAKE_PAGES.map((page) => (
-              <Tab key={page.path}>{page.name}</Tab>
-            ))}
-          </TabList>
-        </Tabs>
-      </div>
-      <Suspense fallback={null}>
-        <Outlet />
-      </Suspense>
-    </>
-  );
+  return <TabbedSection title="Intake" label="Intake pages" pages={INTAKE_PAGES} tabOf={tabIndexOf} />;
 }

@@ -2,22 +2,18 @@ import { TextInput } from '@carbon/react';
 import { CreateDistrictRequest } from '@stormhour/shared';
 import { useState } from 'react';
 import { FormModal, useSaveAndClose } from '../../../../components/FormModal';
-import { fieldErrorsFromZod } from '../../../../lib/fieldErrors';
 import { useCreateDistrict } from '../api';
 
 export function AddDistrictModal({ onClose }: { onClose: () => void }) {
   const [code, setCode] = useState('');
   const [name, setName] = useState('');
-  const { errors, setErrors, save } = useSaveAndClose(onClose);
+  const { errors, saveChecked } = useSaveAndClose(onClose);
   const mutation = useCreateDistrict();
 
   async function submit() {
-    const parsed = CreateDistrictRequest.safeParse({ code: code.toUpperCase(), name });
-    if (!parsed.success) {
-      setErrors(fieldErrorsFromZod(parsed.error));
-      return;
-    }
-    await save(() => mutation.mutateAsync(parsed.data));
+    await saveChecked(CreateDistrictRequest, { code: code.toUpperCase(), name }, (body) =>
+      mutation.mutateAsync(body),
+    );
   }
 
   return (

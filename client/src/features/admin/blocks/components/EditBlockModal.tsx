@@ -2,7 +2,6 @@ import { Select, SelectItem, TextInput } from '@carbon/react';
 import { type BlockView, type DistrictView, UpdateBlockRequest } from '@stormhour/shared';
 import { useState } from 'react';
 import { FormModal, useSaveAndClose } from '../../../../components/FormModal';
-import { fieldErrorsFromZod } from '../../../../lib/fieldErrors';
 import { useUpdateBlock } from '../api';
 
 interface EditBlockModalProps {
@@ -14,7 +13,7 @@ interface EditBlockModalProps {
 export function EditBlockModal({ block, districts, onClose }: EditBlockModalProps) {
   const [name, setName] = useState(block.name);
   const [districtId, setDistrictId] = useState(block.districtId);
-  const { errors, setErrors, save } = useSaveAndClose(onClose);
+  const { errors, saveChecked } = useSaveAndClose(onClose);
   const mutation = useUpdateBlock();
 
   async function submit() {
@@ -23,16 +22,9 @@ export function EditBlockModal({ block, districts, onClose }: EditBlockModalProp
       ...(name !== block.name ? { name } : {}),
       ...(districtId !== block.districtId ? { districtId } : {}),
     };
-    const parsed = UpdateBlockRequest.safeParse(changes);
-    if (!parsed.success) {
-      setErrors(fieldErrorsFromZod(parsed.error));
-      return;
-    }
-    if (Object.keys(parsed.data).length === 0) {
-      onClose();
-      return;
-    }
-    await save(() => mutation.mutateAsync({ id: block.id, body: parsed.data }));
+    await saveChecked(UpdateBlockRequest, changes, (body) =>
+      Object.keys(body).length === 0 ? 'unchanged' : mutation.mutateAsync({ id: block.id, body }),
+    );
   }
 
   return (

@@ -2,25 +2,17 @@ import { TextInput } from '@carbon/react';
 import { type DistrictView, UpdateDistrictRequest } from '@stormhour/shared';
 import { useState } from 'react';
 import { FormModal, useSaveAndClose } from '../../../../components/FormModal';
-import { fieldErrorsFromZod } from '../../../../lib/fieldErrors';
 import { useRenameDistrict } from '../api';
 
 export function RenameDistrictModal({ district, onClose }: { district: DistrictView; onClose: () => void }) {
   const [name, setName] = useState(district.name);
-  const { errors, setErrors, save } = useSaveAndClose(onClose);
+  const { errors, saveChecked } = useSaveAndClose(onClose);
   const mutation = useRenameDistrict();
 
-  async function submit() {
-    const parsed = UpdateDistrictRequest.safeParse({ name });
-    if (!parsed.success) {
-      setErrors(fieldErrorsFromZod(parsed.error));
-      return;
-    }
-    if (parsed.data.name === district.name) {
-      onClose();
-      return;
-    }
-    await save(() => mutation.mutateAsync({ id: district.id, body: parsed.data }));
+  function submit() {
+    return saveChecked(UpdateDistrictRequest, { name }, (body) =>
+      body.name === district.name ? 'unchanged' : mutation.mutateAsync({ id: district.id, body }),
+    );
   }
 
   return (

@@ -2,7 +2,6 @@ import { TextInput } from '@carbon/react';
 import { CreateUserRequest, type DistrictView } from '@stormhour/shared';
 import { useState } from 'react';
 import { FormModal, useSaveAndClose } from '../../../../components/FormModal';
-import { fieldErrorsFromZod } from '../../../../lib/fieldErrors';
 import { useCreateUser } from '../api';
 import { districtIdFor } from '../peopleList';
 import { RoleDistrictFields } from './RoleDistrictFields';
@@ -11,23 +10,19 @@ const EMPTY = { email: '', name: '', role: '', districtId: '', password: '' };
 
 export function AddPersonModal({ districts, onClose }: { districts: DistrictView[]; onClose: () => void }) {
   const [values, setValues] = useState(EMPTY);
-  const { errors, setErrors, save } = useSaveAndClose(onClose);
+  const { errors, saveChecked } = useSaveAndClose(onClose);
   const mutation = useCreateUser();
   const set = (field: keyof typeof EMPTY) => (value: string) => setValues((v) => ({ ...v, [field]: value }));
 
   async function submit() {
-    const parsed = CreateUserRequest.safeParse({
+    const person = {
       email: values.email,
       name: values.name,
       role: values.role === '' ? undefined : values.role,
       districtId: districtIdFor(values.role, values.districtId),
       password: values.password,
-    });
-    if (!parsed.success) {
-      setErrors(fieldErrorsFromZod(parsed.error));
-      return;
-    }
-    await save(() => mutation.mutateAsync(parsed.data));
+    };
+    await saveChecked(CreateUserRequest, person, (body) => mutation.mutateAsync(body));
   }
 
   return (
