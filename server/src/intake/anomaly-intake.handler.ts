@@ -1,6 +1,5 @@
-import { Inject, Injectable } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import type { AnomalyVariable } from '@stormhour/shared';
-import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
 import { AnomaliesRepository } from '../regimes/anomalies.repository.js';
 import { parseAnomalyCsv } from './anomaly-csv.js';
@@ -21,24 +20,25 @@ export interface AnomalyIntakeParams {
 /** Anomaly grids through the shared intake: every file read first, then each stored in one transaction. */
 @Injectable()
 export class AnomalyIntakeHandler {
-  readonly store: UploadStore;
-
   constructor(
-    @Inject(APP_CONFIG) config: AppConfig,
-    readonly uploads: UploadsRepository,
+    private readonly uploads: UploadsRepository,
+    private readonly store: UploadStore,
     private readonly anomalies: AnomaliesRepository,
-  ) {
-    this.store = new UploadStore(config.filesDir);
-  }
+  ) {}
 
   async run(p: AnomalyIntakeParams, ctx: JobContext): Promise<JobOutcome> {
     // A TIFF starts with II* or MM*; anything else is taken as long-form CSV.
     const isTiff = (c: Buffer) =>
       c.length > 4 && (c.toString('latin1', 0, 2) === 'II' || c.toString('latin1', 0, 2) === 'MM');
-    const read = await readEveryFile(p.files, p.onError, ctx, this, async (content) =>
-      isTiff(content)
-        ? [await readAnomalyTiff(content, p)]
-        : parseAnomalyCsv(content.toString('utf8'), p.units),
+    const read = await readEveryFile(
+      p.files,
+      p.onError,
+      ctx,
+      { uploads: this.uploads, store: this.store },
+      async (content) =>
+        isTiff(content)
+          ? [await readAnomalyTiff(content, p)]
+          : parseAnomalyCsv(content.toString('utf8'), p.units),
     );
     if (read.stopped) return read.stopped;
     const { files, todo, parsed, problems } = read;

@@ -8,6 +8,7 @@ import { AnomalyIntakeHandler } from './anomaly-intake.handler.js';
 import { IntakeController } from './intake.controller.js';
 import { IntakeService } from './intake.service.js';
 import { RadarIntakeHandler } from './radar-intake.handler.js';
+import { UploadStore } from './upload-store.js';
 import { UploadsRepository } from './uploads.repository.js';
 
 @Module({
@@ -21,7 +22,18 @@ import { UploadsRepository } from './uploads.repository.js';
     }),
   ],
   controllers: [IntakeController],
-  providers: [IntakeService, UploadsRepository, RadarIntakeHandler, AnomalyIntakeHandler],
+  providers: [
+    IntakeService,
+    UploadsRepository,
+    RadarIntakeHandler,
+    AnomalyIntakeHandler,
+    // Files on disk by content hash, shared by the service that takes uploads and the jobs that read them.
+    {
+      provide: UploadStore,
+      inject: [APP_CONFIG],
+      useFactory: (config: AppConfig) => new UploadStore(config.filesDir),
+    },
+  ],
   exports: [IntakeService],
 })
 export class IntakeModule {}

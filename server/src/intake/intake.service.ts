@@ -1,7 +1,6 @@
-import { BadRequestException, Inject, Injectable, type OnModuleInit } from '@nestjs/common';
+import { BadRequestException, Injectable, type OnModuleInit } from '@nestjs/common';
 import { CellTableMapping, type IntakeRequest, type JobView, type SessionUser } from '@stormhour/shared';
 import { AuditService } from '../audit/audit.service.js';
-import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import type { JobFile } from '../jobs/job-problem.js';
 import { JobsService } from '../jobs/jobs.service.js';
 import { SitesRepository } from '../radar/sites.repository.js';
@@ -23,19 +22,15 @@ export interface IncomingFile {
 /** Takes uploads in: stores each file once by content, then hands the work to a job. */
 @Injectable()
 export class IntakeService implements OnModuleInit {
-  private readonly store: UploadStore;
-
   constructor(
-    @Inject(APP_CONFIG) config: AppConfig,
     private readonly uploads: UploadsRepository,
+    private readonly store: UploadStore,
     private readonly sites: SitesRepository,
     private readonly jobs: JobsService,
     private readonly audit: AuditService,
     private readonly radarIntake: RadarIntakeHandler,
     private readonly anomalyIntake: AnomalyIntakeHandler,
-  ) {
-    this.store = new UploadStore(config.filesDir);
-  }
+  ) {}
 
   onModuleInit(): void {
     this.jobs.register(RADAR_INTAKE_JOB, (params, ctx) =>

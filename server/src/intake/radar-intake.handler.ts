@@ -1,4 +1,4 @@
-import { Inject, Injectable } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import {
   type CellTableMapping,
   type IntakeKind,
@@ -7,7 +7,6 @@ import {
   type SiteView,
 } from '@stormhour/shared';
 import proj4 from 'proj4';
-import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
 import { identifyCells } from '../radar/engine/identify.js';
 import { sitePlane } from '../radar/engine/site-plane.js';
@@ -55,16 +54,12 @@ type Parsed =
  */
 @Injectable()
 export class RadarIntakeHandler {
-  readonly store: UploadStore;
-
   constructor(
-    @Inject(APP_CONFIG) config: AppConfig,
     private readonly sites: SitesRepository,
-    readonly uploads: UploadsRepository,
+    private readonly uploads: UploadsRepository,
+    private readonly store: UploadStore,
     private readonly radar: RadarDataService,
-  ) {
-    this.store = new UploadStore(config.filesDir);
-  }
+  ) {}
 
   async run(p: RadarIntakeParams, ctx: JobContext): Promise<JobOutcome> {
     const site = (await this.sites.find(p.siteId)) as SiteView;
@@ -75,8 +70,12 @@ export class RadarIntakeHandler {
       settings,
       intervalMs: site.intervalMin * 60_000,
     };
-    const read = await readEveryFile(p.files, p.onError, ctx, this, (content, fileName) =>
-      this.parse(p, siteCtx, fileName, content),
+    const read = await readEveryFile(
+      p.files,
+      p.onError,
+      ctx,
+      { uploads: this.uploads, store: this.store },
+      (content, fileName) => this.parse(p, siteCtx, fileName, content),
     );
     if (read.stopped) return read.stopped;
     const { files, todo, parsed, problems } = read;
