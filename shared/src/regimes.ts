@@ -78,3 +78,19 @@ export interface RegimeComposite {
   u: (number | null)[][];
   v: (number | null)[][];
 }
+
+/**
+ * The regime expected for a coming period, classified from forecast anomaly grids with the moisture
+ * bounds of the analysis record (so a forecast week is "moist" by the same yardstick as the past).
+ * `GET /api/regimes/expected?siteId&from&to`.
+ */
+export interface ExpectedRegimeResponse {
+  siteId: number;
+  from: string;
+  to: string;
+  /** Forecast days found in the period, each classified with the record's bounds. */
+  days: RegimeDay[];
+  /** The regime of most forecast days; null when no forecast grid covers the period. */
+  regime: string | null;
+  moistureBoundsGKg: [number, number] | null;
+}
