@@ -1,5 +1,6 @@
 export * from './audit.js';
 export * from './auth.js';
+export * from './bulletins.js';
 export * from './errors.js';
 export * from './intake.js';
 export * from './radar.js';
