@@ -108,7 +108,7 @@ export function bulletinSms(c: BulletinContent): string {
   let body = '';
   for (const b of ranked) {
     const next = `${body}${body ? ',' : ''} ${b.blockName} ${Math.round((b.afternoonChance ?? 0) * 100)}%`;
-    if (gsmSafe(head + next + '.' + tail).length > SMS_MAX_CHARS) break;
+    if (gsmSafe(`${head}${next}.${tail}`).length > SMS_MAX_CHARS) break;
     body = next;
   }
   return gsmSafe(`${head}${body}.${tail}`);
