@@ -55,6 +55,21 @@ describe('anomaly intake and regimes', () => {
     expect(res.body.counts.reduce((n: number, c: { days: number }) => n + c.days, 0)).toBe(122);
   });
 
+  it('finds moist the days the demo generator made moist (agreement at least 90 %)', async () => {
+    const res = await t.http.get(`/api/regimes?siteId=${siteId}`).set(auth).expect(200);
+    // The generator's own domain-mean q′ per day, classed by its terciles (type 7, as numpy).
+    const made: { date: string; qAnomalyGKg: number }[] = JSON.parse(
+      readFileSync(join(demo, 'scenario.json'), 'utf8'),
+    ).daily;
+    const sorted = made.map((d) => d.qAnomalyGKg).sort((a, b) => a - b);
+    const upperTercile = sorted[Math.floor((sorted.length - 1) * (2 / 3))];
+    const madeMoist = new Set(made.filter((d) => d.qAnomalyGKg > upperTercile).map((d) => d.date));
+    const ours = res.body.days as { date: string; moisture: string }[];
+    const agree = ours.filter((d) => (d.moisture === 'moist') === madeMoist.has(d.date)).length;
+    console.log(`moist-day agreement with the generator: ${agree}/${ours.length}`);
+    expect(agree / ours.length).toBeGreaterThanOrEqual(0.9);
+  });
+
   it('shows, on the demo season, more storm onsets on moist days than on dry days', async () => {
     await upload('scan-inventory', [scans]);
     await upload('cell-table', [cells]);
