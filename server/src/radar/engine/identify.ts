@@ -235,8 +235,7 @@ export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_ID
         const raw = data[base + allColumns[k]];
         const v = raw === nodata ? Number.NaN : raw;
         if (v >= echoTopDbz) topLevel[k] = z;
-        // A layer with a missing end adds nothing (vilLayer gives 0), so it is not evaluated.
-        if (z > 0 && v === v && below[k] === below[k]) vil[k] += vilLayer(below[k], v, dh, vilCapDbz);
+        if (z > 0) vil[k] += vilLayer(below[k], v, dh, vilCapDbz);
         below[k] = v;
       }
     }
@@ -261,7 +260,7 @@ export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_ID
       xs[i] = xKm[col];
       ys[i] = yKm[col];
       const r = rain[k];
-      if (r === r) {
+      if (!Number.isNaN(r)) {
         if (r > rainMax) rainMax = r;
         flux += (r / 3.6e6) * areaKm2[col] * 1e6;
       }
