@@ -3,7 +3,7 @@ import type { CellTableMapping, SiteSettings, SiteView } from '@stormhour/shared
 import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
 import { type CellSource, RadarDataService } from '../radar/radar-data.service.js';
 import { SitesRepository } from '../radar/sites.repository.js';
-import { FileParser } from './parse-in-worker.js';
+import { IntakeWorker } from './intake-worker.js';
 import { buildReport } from './quality-report.js';
 import { type RadarKind, siteContext } from './radar-parse.js';
 import { readEveryFile } from './read-phase.js';
@@ -42,17 +42,31 @@ export class RadarIntakeHandler {
   async run(p: RadarIntakeParams, ctx: JobContext): Promise<JobOutcome> {
     const site = (await this.sites.find(p.siteId)) as SiteView;
     const settings = (await this.sites.settingsVersion(p.siteId, p.settingsVersion)) as SiteSettings;
+    // The CPU-bound steps (decoding and identifying volumes, parsing and tracking tables, re-tracking
+    // the site's scans) run in a worker thread, so polls and other requests are answered meanwhile.
+    const worker = await IntakeWorker.start((m) => this.logger.warn(m));
+    try {
+      return await this.readStoreAndTrack(p, ctx, site, settings, worker);
+    } finally {
+      await worker.close();
+    }
+  }
+
+  private async readStoreAndTrack(
+    p: RadarIntakeParams,
+    ctx: JobContext,
+    site: SiteView,
+    settings: SiteSettings,
+    worker: IntakeWorker,
+  ): Promise<JobOutcome> {
     const siteCtx = siteContext(site, settings);
-    // The CPU-bound reading (decoding, identifying, parsing and tracking a table) runs in a worker
-    // thread, so polls and other requests are answered meanwhile.
-    const parser = await FileParser.start((m) => this.logger.warn(m));
     const read = await readEveryFile(
       p.files,
       p.onError,
       ctx,
       { uploads: this.uploads, store: this.store },
       (content, fileName) =>
-        parser.parse({
+        worker.parse({
           kind: p.kind,
           mapping: p.mapping,
           timePattern: p.timePattern,
@@ -61,7 +75,7 @@ export class RadarIntakeHandler {
           fileName,
           content,
         }),
-    ).finally(() => parser.close());
+    );
     if (read.stopped) return read.stopped;
     const { files, todo, parsed, problems } = read;
 
@@ -113,7 +127,15 @@ export class RadarIntakeHandler {
     const tracked = await this.radar.transaction(async (tx) => {
       const retracked =
         p.kind === 'volume' || p.kind === 'column-max'
-          ? await this.radar.retrackScans(p.siteId, p.kind, siteCtx, p.settingsVersion, locator, tx)
+          ? await this.radar.retrackScans(
+              p.siteId,
+              p.kind,
+              siteCtx,
+              p.settingsVersion,
+              locator,
+              tx,
+              (cells) => worker.track({ cells, site, settings }),
+            )
           : [];
       await this.radar.recomputeStarts(p.siteId, cellSource, siteCtx, tx);
       return retracked;

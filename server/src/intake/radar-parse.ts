@@ -23,7 +23,7 @@ import {
 /**
  * Reading one radar intake file into what will be stored, with nothing stored yet: the CPU-bound
  * half of the intake job (GeoTIFF decoding and cell identification, cell-table parsing and tracking).
- * Plain data in and out, so it can run in a worker thread (parse-worker.ts).
+ * Plain data in and out, so it can run in a worker thread (intake-worker.entry.ts).
  */
 
 export type RadarKind = Exclude<IntakeKind, 'anomaly-grid'>;

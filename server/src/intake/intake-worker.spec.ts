@@ -4,7 +4,7 @@ import { fileURLToPath } from 'node:url';
 import type { SiteView } from '@stormhour/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FileProblem } from './geotiff-reader.js';
-import { FileParser } from './parse-in-worker.js';
+import { IntakeWorker } from './intake-worker.js';
 import { type ParseRequest, parseRadarFile } from './radar-parse.js';
 
 // The worker must give exactly what reading in this thread gives: the in-process parser is the
@@ -32,9 +32,9 @@ function request(kind: ParseRequest['kind'], fileName: string, content: Buffer):
 }
 
 describe('reading intake files in a worker thread', () => {
-  let parser: FileParser;
+  let parser: IntakeWorker;
   beforeAll(async () => {
-    parser = await FileParser.start();
+    parser = await IntakeWorker.start();
   });
   afterAll(() => parser.close());
 
