@@ -5,7 +5,8 @@ import type { SiteView } from '@stormhour/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FileProblem } from './geotiff-reader.js';
 import { IntakeWorker } from './intake-worker.js';
-import { type ParseRequest, parseRadarFile } from './radar-parse.js';
+import { tracksByEngine } from './prepare-cells.js';
+import { type ParseRequest, parseRadarFile, siteContext } from './radar-parse.js';
 
 // The worker must give exactly what reading in this thread gives: the in-process parser is the
 // reference here (its own numbers are checked against outside sources in identify.spec.ts,
@@ -77,5 +78,27 @@ describe('reading intake files in a worker thread', () => {
       request('scan-inventory', 's.csv', Buffer.from('scan_time_utc\n2025-08-01T06:00:00Z\n')),
     );
     expect(again).toEqual({ kind: 'scan-inventory', times: [Date.UTC(2025, 7, 1, 6)] });
+  });
+
+  it('tracks cells the same way as tracking in this thread', async () => {
+    const bytes = readFileSync(join(demo, readdirSync(demo).find((f) => f.startsWith('cells-')) as string));
+    const table = await parseRadarFile(request('cell-table', 'cells.csv', bytes));
+    if (table.kind !== 'cell-table') throw new Error('expected a cell table');
+    // A day of the season, without the table's own track ids: the engine links the cells.
+    const day = table.cells
+      .filter((c) => c.time < table.cells[0].time + 86_400_000)
+      .map((c) => ({ ...c, externalTrackId: null, parentExternalTrackId: null }));
+    const inWorker = await parser.track({ cells: day, site, settings: site.settings });
+    expect(inWorker.length).toBeGreaterThan(0);
+    expect(inWorker).toEqual(tracksByEngine(day, siteContext(site, site.settings)));
+  });
+
+  it('turns an unexpected error in the worker into an Error with its message, not a file problem', async () => {
+    const e = await parser
+      .track({ cells: null as never, site, settings: site.settings })
+      .catch((err: unknown) => err);
+    expect(e).toBeInstanceOf(Error);
+    expect(e).not.toBeInstanceOf(FileProblem);
+    expect((e as Error).message).toMatch(/null/);
   });
 });
