@@ -2,21 +2,12 @@ import { fromArrayBuffer, type GeoTIFFImage } from 'geotiff';
 import proj4 from 'proj4';
 import type { PlacedGrid } from '../radar/engine/grid.js';
 import type { SitePlane } from '../radar/engine/site-plane.js';
+import { FileProblem } from './file-problem.js';
 import { readBands } from './tiff-bands.js';
 import { parseTime, timeFromFileName } from './times.js';
 import './zlib-decoder.js';
 
-/** A problem that names where in the file it is (a band, a key); the file is refused whole. */
-export class FileProblem extends Error {
-  constructor(
-    readonly where: string | null,
-    problem: string,
-    /** Every problem found, when there are several (a table's bad rows). */
-    readonly all: { where: string | null; problem: string }[] = [{ where, problem }],
-  ) {
-    super(problem);
-  }
-}
+export { FileProblem };
 
 export interface ReadOptions {
   fileName: string;

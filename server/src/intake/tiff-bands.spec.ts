@@ -13,8 +13,8 @@ function floatTiff(width: number, height: number, bands: number): { file: Buffer
 }
 
 describe('readBands', () => {
-  it.each([1, 3])(
-    'undoes the floating-point predictor exactly as the geotiff package does (%d band(s))',
+  it.each([1, 3, 4, 20])(
+    'undoes the floating-point predictor exactly as the geotiff package does (%d band(s); 4 and 20 take the four-bytes-at-a-time path)',
     async (bands) => {
       const { file } = floatTiff(37, 11, bands);
       const packed = predictAndDeflate(file, 37, bands, (b) => deflateSync(b));

@@ -115,6 +115,8 @@ export class RadarDataService {
     settingsVersion: number,
     locator: BlockLocator,
     tx: Executor,
+    /** Tracks the cells; the intake job passes its worker thread's. */
+    track: (cells: PreparedCell[]) => Promise<PreparedTrack[]> = async (cells) => tracksByEngine(cells, ctx),
   ) {
     await this.data.deleteTracks(siteId, source, tx);
     const rows = await this.data.cellsOf(siteId, source, tx);
@@ -136,7 +138,7 @@ export class RadarDataService {
       externalTrackId: null,
       parentExternalTrackId: null,
     }));
-    const tracks = tracksByEngine(cells, ctx);
+    const tracks = await track(cells);
     const ids = await this.insertTracks(
       siteId,
       source,

@@ -87,121 +87,198 @@ export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_ID
   const heightsKm = grid.levelHeightsM.map((m) => m / 1000);
   const { runs, components } = labelling;
 
-  // Group runs by component (counting sort) so each cell is described in one pass over its runs.
-  const firstRun = new Int32Array(components + 1);
-  for (let i = 0; i < runs.count; i++) firstRun[runs.label[i] + 1]++;
-  for (let c = 0; c < components; c++) firstRun[c + 1] += firstRun[c];
-  const order = new Int32Array(runs.count);
-  const fill = firstRun.slice(0, components);
-  for (let i = 0; i < runs.count; i++) order[fill[runs.label[i]]++] = i;
-
   const plane = nx * ny;
-  const stamp = new Int32Array(plane).fill(-1);
-  const cells: IdentifiedCell[] = [];
-  let rejectedTooSmall = 0;
+  const areaKm2 = grid.areaKm2;
+  const rz = runs.z;
+  const ry = runs.y;
+  const rx0 = runs.x0;
+  const rx1 = runs.x1;
+  const rl = runs.label;
+  const is3dSize = is3d ? 1 : 0;
 
   // Size first, from the runs alone: most regions are speckle and are dropped without reading a value.
   const size = new Float64Array(components);
   for (let i = 0; i < runs.count; i++) {
-    const rowBase = runs.y[i] * nx;
-    const thickness = is3d ? thicknessKm[runs.z[i]] : 1;
+    const rowBase = ry[i] * nx;
+    const thickness = is3dSize ? thicknessKm[rz[i]] : 1;
     let area = 0;
-    for (let x = runs.x0[i]; x < runs.x1[i]; x++) area += grid.areaKm2[rowBase + x];
-    size[runs.label[i]] += area * thickness;
+    for (let x = rx0[i]; x < rx1[i]; x++) area += areaKm2[rowBase + x];
+    size[rl[i]] += area * thickness;
+  }
+  // 2-D runs never share a column, so their summed area is the footprint.
+  const minSize = is3d ? s.minVolumeKm3 : s.minAreaKm2;
+  const kept = new Uint8Array(components);
+  let rejectedTooSmall = 0;
+  for (let c = 0; c < components; c++) {
+    if (size[c] < minSize) rejectedTooSmall++;
+    else kept[c] = 1;
   }
 
-  for (let c = 0; c < components; c++) {
-    // 2-D runs never share a column, so their summed area is the footprint.
-    if (size[c] < (is3d ? s.minVolumeKm3 : s.minAreaKm2)) {
-      rejectedTooSmall++;
-      continue;
+  // Sums over each kept cell's voxels in one pass over the runs in scan order, i.e. along memory.
+  // Each cell still sees its own voxels in scan order, so every sum is the same as cell by cell.
+  const volume = new Float64Array(components);
+  const core = new Float64Array(components);
+  const wz = new Float64Array(components);
+  const wx = new Float64Array(components);
+  const wy = new Float64Array(components);
+  const maxDbz = new Float64Array(components).fill(-Infinity);
+  const maxZ = new Int32Array(components);
+  const topZ = new Int32Array(components);
+  const xKm = grid.xKm;
+  const yKm = grid.yKm;
+  const coreDbz = s.coreDbz;
+  for (let run = 0; run < runs.count; run++) {
+    const c = rl[run];
+    if (kept[c] === 0) continue;
+    const z = rz[run];
+    const rowBase = ry[run] * nx;
+    if (z > topZ[c]) topZ[c] = z;
+    const thickness = thicknessKm[z];
+    const base = z * plane;
+    let vol = volume[c];
+    let cor = core[c];
+    let sw = wz[c];
+    let sx = wx[c];
+    let sy = wy[c];
+    let mx = maxDbz[c];
+    for (let x = rx0[run]; x < rx1[run]; x++) {
+      const col = rowBase + x;
+      const v = data[base + col];
+      const cellVolume = areaKm2[col] * thickness;
+      vol += cellVolume;
+      if (v >= coreDbz) cor += cellVolume;
+      if (v > mx) {
+        mx = v;
+        maxZ[c] = z;
+      }
+      const w = dbzToZ(v) * (is3d ? cellVolume : areaKm2[col]);
+      sw += w;
+      sx += w * xKm[col];
+      sy += w * yKm[col];
     }
-    let volume = 0;
-    let core = 0;
-    let wz = 0;
-    let wx = 0;
-    let wy = 0;
-    let maxDbz = -Infinity;
-    let maxZ = 0;
-    let topZ = 0;
-    const cols: number[] = [];
+    volume[c] = vol;
+    core[c] = cor;
+    wz[c] = sw;
+    wx[c] = sx;
+    wy[c] = sy;
+    maxDbz[c] = mx;
+  }
+
+  // Footprints: each kept cell's columns in order of first appearance (for the area sum), then sorted.
+  // Runs are grouped by cell with a stable counting sort, so each cell's runs stay in scan order.
+  const firstRun = new Int32Array(components + 1);
+  for (let i = 0; i < runs.count; i++) if (kept[rl[i]]) firstRun[rl[i] + 1]++;
+  for (let c = 0; c < components; c++) firstRun[c + 1] += firstRun[c];
+  const order = new Int32Array(firstRun[components]);
+  const fill = firstRun.slice(0, components);
+  for (let i = 0; i < runs.count; i++) if (kept[rl[i]]) order[fill[rl[i]]++] = i;
+  const stamp = new Int32Array(plane).fill(-1);
+  const footprints: Int32Array[] = [];
+  const areas: number[] = [];
+  let cols = new Int32Array(1024);
+  for (let c = 0; c < components; c++) {
+    if (kept[c] === 0) continue;
+    let n = 0;
     for (let r = firstRun[c]; r < firstRun[c + 1]; r++) {
       const run = order[r];
-      const z = runs.z[run];
-      const rowBase = runs.y[run] * nx;
-      if (z > topZ) topZ = z;
-      for (let x = runs.x0[run]; x < runs.x1[run]; x++) {
+      const rowBase = ry[run] * nx;
+      for (let x = rx0[run]; x < rx1[run]; x++) {
         const col = rowBase + x;
-        const v = data[z * plane + col];
-        const cellVolume = grid.areaKm2[col] * thicknessKm[z];
-        volume += cellVolume;
-        if (v >= s.coreDbz) core += cellVolume;
-        if (v > maxDbz) {
-          maxDbz = v;
-          maxZ = z;
-        }
-        const w = dbzToZ(v) * (is3d ? cellVolume : grid.areaKm2[col]);
-        wz += w;
-        wx += w * grid.xKm[col];
-        wy += w * grid.yKm[col];
         if (stamp[col] !== c) {
           stamp[col] = c;
-          cols.push(col);
+          if (n === cols.length) {
+            const bigger = new Int32Array(n * 2);
+            bigger.set(cols);
+            cols = bigger;
+          }
+          cols[n++] = col;
         }
       }
     }
     let area = 0;
-    for (const col of cols) area += grid.areaKm2[col];
+    for (let i = 0; i < n; i++) area += areaKm2[cols[i]];
+    areas.push(area);
+    footprints.push(cols.slice(0, n).sort());
+  }
 
-    // Columns in memory order, then one pass per level: the reads run along rows, not down the
-    // 40 levels of a column that lie a whole plane apart.
-    const columns = Int32Array.from(cols).sort();
+  // Column quantities (echo top, VIL, rain at the lowest level) depend on the column alone: work
+  // them out once for every column under a kept cell, level by level so reads run along rows.
+  const colIndex = new Int32Array(plane).fill(-1);
+  let nCols = 0;
+  for (const f of footprints)
+    for (let i = 0; i < f.length; i++)
+      if (colIndex[f[i]] < 0) {
+        colIndex[f[i]] = 0;
+        nCols++;
+      }
+  const allColumns = new Int32Array(nCols);
+  for (let col = 0, k = 0; col < plane; col++)
+    if (colIndex[col] === 0) {
+      colIndex[col] = k;
+      allColumns[k++] = col;
+    }
+  const topLevel = new Int32Array(nCols).fill(-1);
+  const vil = new Float64Array(nCols);
+  const rain = new Float64Array(nCols).fill(Number.NaN);
+  for (let k = 0; k < nCols; k++) {
+    const lowest = data[allColumns[k]];
+    if (Number.isFinite(lowest) && lowest !== nodata) rain[k] = rainRate(lowest, s.zr);
+  }
+  if (is3d) {
+    const below = new Float64Array(nCols);
+    const echoTopDbz = s.echoTopDbz;
+    const vilCapDbz = s.vilCapDbz;
+    for (let z = 0; z < nz; z++) {
+      const base = z * plane;
+      const dh = z > 0 ? grid.levelHeightsM[z] - grid.levelHeightsM[z - 1] : 0;
+      for (let k = 0; k < nCols; k++) {
+        const raw = data[base + allColumns[k]];
+        const v = raw === nodata ? Number.NaN : raw;
+        if (v >= echoTopDbz) topLevel[k] = z;
+        if (z > 0) vil[k] += vilLayer(below[k], v, dh, vilCapDbz);
+        below[k] = v;
+      }
+    }
+  }
+
+  const cells: IdentifiedCell[] = [];
+  for (let c = 0, f = 0; c < components; c++) {
+    if (kept[c] === 0) continue;
+    const columns = footprints[f];
+    const area = areas[f++];
     const n = columns.length;
-    const topLevel = new Int32Array(n).fill(-1);
-    const below = new Float64Array(n);
-    const vil = new Float64Array(n);
     let rainMax = 0;
     let flux = 0;
+    let echoTopLevel = -1;
+    let vilMax = 0;
+    let vilMass = 0;
     const xs = new Float64Array(n);
     const ys = new Float64Array(n);
     for (let i = 0; i < n; i++) {
       const col = columns[i];
-      xs[i] = grid.xKm[col];
-      ys[i] = grid.yKm[col];
-      const lowest = data[col];
-      if (Number.isFinite(lowest) && lowest !== nodata) {
-        const r = rainRate(lowest, s.zr);
+      const k = colIndex[col];
+      xs[i] = xKm[col];
+      ys[i] = yKm[col];
+      const r = rain[k];
+      if (!Number.isNaN(r)) {
         if (r > rainMax) rainMax = r;
-        flux += (r / 3.6e6) * grid.areaKm2[col] * 1e6;
+        flux += (r / 3.6e6) * areaKm2[col] * 1e6;
       }
     }
     if (is3d) {
-      for (let z = 0; z < nz; z++) {
-        const base = z * plane;
-        const dh = z > 0 ? grid.levelHeightsM[z] - grid.levelHeightsM[z - 1] : 0;
-        for (let i = 0; i < n; i++) {
-          const raw = data[base + columns[i]];
-          const v = raw === nodata ? Number.NaN : raw;
-          if (v >= s.echoTopDbz) topLevel[i] = z;
-          if (z > 0) vil[i] += vilLayer(below[i], v, dh, s.vilCapDbz);
-          below[i] = v;
-        }
+      for (let i = 0; i < n; i++) {
+        const k = colIndex[columns[i]];
+        if (topLevel[k] > echoTopLevel) echoTopLevel = topLevel[k];
+        if (vil[k] > vilMax) vilMax = vil[k];
+        vilMass += vil[k] * areaKm2[columns[i]] * 1e6;
       }
     }
-    let echoTopLevel = -1;
-    let vilMax = 0;
-    let vilMass = 0;
-    for (let i = 0; i < n; i++) {
-      if (topLevel[i] > echoTopLevel) echoTopLevel = topLevel[i];
-      if (vil[i] > vilMax) vilMax = vil[i];
-      vilMass += vil[i] * grid.areaKm2[columns[i]] * 1e6;
-    }
     const ellipse = equivalentEllipse(xs, ys);
-    const cx = wx / wz;
-    const cy = wy / wz;
+    const cx = wx[c] / wz[c];
+    const cy = wy[c] / wz[c];
     const [lon, lat] = grid.toLonLat(cx, cy);
-    const top35Km = is3d ? heightsKm[topZ] : null;
-    const echoTopKm = is3d ? heightsKm[Math.max(echoTopLevel, topZ)] : null;
+    const top35Km = is3d ? heightsKm[topZ[c]] : null;
+    const echoTopKm = is3d ? heightsKm[Math.max(echoTopLevel, topZ[c])] : null;
     const typeHeight = s.typeHeight === 'echoTop' ? echoTopKm : top35Km;
     cells.push({
       xKm: cx,
@@ -209,12 +286,12 @@ export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_ID
       lon,
       lat,
       areaKm2: area,
-      volumeKm3: is3d ? volume : null,
-      maxDbz,
-      maxDbzHeightKm: is3d ? heightsKm[maxZ] : null,
+      volumeKm3: is3d ? volume[c] : null,
+      maxDbz: maxDbz[c],
+      maxDbzHeightKm: is3d ? heightsKm[maxZ[c]] : null,
       top35Km,
       echoTopKm,
-      coreVolumeKm3: is3d ? core : null,
+      coreVolumeKm3: is3d ? core[c] : null,
       vilMaxKgM2: is3d ? vilMax : null,
       vilMassKg: is3d ? vilMass : null,
       rainRateMaxMmH: rainMax,
