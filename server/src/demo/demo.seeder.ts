@@ -123,7 +123,9 @@ export class DemoSeeder implements OnApplicationBootstrap {
         incoming,
       );
       await done;
-      summary.push(`${product ? `${product} ` : ''}${kind} ${paths.length} file(s) in ${Date.now() - t} ms (job ${job.id})`);
+      summary.push(
+        `${product ? `${product} ` : ''}${kind} ${paths.length} file(s) in ${Date.now() - t} ms (job ${job.id})`,
+      );
     }
     return summary.length ? `; radar site ${site.code}: ${summary.join(', ')}` : '';
   }

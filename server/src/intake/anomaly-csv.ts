@@ -108,7 +108,12 @@ export function parseAnomalyCsv(text: string, units?: AnomalyUnits): AnomalyFile
   const fits = (v: AnomalyVariable, u: AnomalyUnits) => (v === 'q') === (u === 'g/kg' || u === 'kg/kg');
   const groups = new Map<
     string,
-    { file: AnomalyFile; factor: number; days: Map<string, Float32Array>; rowOf: Map<string, Map<number, number>> }
+    {
+      file: AnomalyFile;
+      factor: number;
+      days: Map<string, Float32Array>;
+      rowOf: Map<string, Map<number, number>>;
+    }
   >();
   for (const r of rows) {
     const key = `${r.variable}@${r.level}`;

@@ -3,8 +3,8 @@ import type { AnomalyProduct, AnomalyVariable, FieldKind } from '@stormhour/shar
 import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
 import { SitesRepository } from '../radar/sites.repository.js';
 import { AnomaliesRepository } from '../regimes/anomalies.repository.js';
-import { type ClimatologyField, subtractClimatology } from './anomaly-climatology.js';
 import { checkOverlapsCoverage, UploadDates } from './anomaly-checks.js';
+import { type ClimatologyField, subtractClimatology } from './anomaly-climatology.js';
 import { parseAnomalyCsv } from './anomaly-csv.js';
 import { type AnomalyFile, type AnomalyUnits, readAnomalyTiff } from './anomaly-reader.js';
 import { FileProblem } from './geotiff-reader.js';

@@ -51,10 +51,7 @@ export function lonLatGridFor(src: SourcePlacement, crs: string): LonLatGrid {
     visit(0, j);
     visit(src.nx - 1, j);
   }
-  const [, centreLat] = toLonLat.forward([
-    src.x0 + (src.nx / 2) * src.dx,
-    src.y0 + (src.ny / 2) * src.dy,
-  ]);
+  const [, centreLat] = toLonLat.forward([src.x0 + (src.nx / 2) * src.dx, src.y0 + (src.ny / 2) * src.dy]);
   const round = (deg: number) => Math.max(1e-4, Math.round(deg * 1e4) / 1e4);
   const dLat = round(Math.abs(src.dy) / METRES_PER_DEGREE);
   const dLon = round(Math.abs(src.dx) / (METRES_PER_DEGREE * Math.cos((centreLat * Math.PI) / 180)));

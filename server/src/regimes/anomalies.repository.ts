@@ -1,9 +1,9 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { AnomalySource, AnomalyVariable, RegimeSettings } from '@stormhour/shared';
 import { and, asc, desc, eq, gte, lte, sql } from 'drizzle-orm';
-import type { ClimatologyField } from '../intake/anomaly-climatology.js';
 import { DATABASE, type DatabaseHandle, type Executor } from '../database/database.js';
 import { anomalyClimatologies, anomalyFields, regimeSettings } from '../database/schema.js';
+import type { ClimatologyField } from '../intake/anomaly-climatology.js';
 
 export type AnomalyProduct = 'analysis' | 'forecast';
 
