@@ -11,6 +11,12 @@ import { FileProblem } from './geotiff-reader.js';
  * cells (DESIGN §3.4), so such a grid could never give a day its means.
  */
 export function checkOverlapsCoverage(grid: GridDefinition, site: Coverage & { code: string }): void {
+  // Most grids hold the radar: try the cell nearest to it before walking the whole grid.
+  const clamp = (k: number, n: number) => Math.min(n - 1, Math.max(0, Math.round(k)));
+  const i0 = clamp((site.lon - grid.lon0) / grid.dLon, grid.nx);
+  const j0 = clamp((grid.lat0 - site.lat) / grid.dLat, grid.ny);
+  const near = distanceAndAzimuth(site, { lat: grid.lat0 - j0 * grid.dLat, lon: grid.lon0 + i0 * grid.dLon });
+  if (isCovered(site, near.km, near.azimuthDeg)) return;
   for (let j = 0; j < grid.ny; j++) {
     const lat = grid.lat0 - j * grid.dLat;
     for (let i = 0; i < grid.nx; i++) {

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { AnomalySource, AnomalyVariable, RegimeSettings } from '@stormhour/shared';
-import { and, asc, desc, eq, gte, lte, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, getTableColumns, gte, lte, sql } from 'drizzle-orm';
 import { DATABASE, type DatabaseHandle, type Executor } from '../database/database.js';
 import { anomalyClimatologies, anomalyFields, regimeSettings } from '../database/schema.js';
 import type { ClimatologyField } from '../intake/anomaly-climatology.js';
@@ -19,6 +19,16 @@ export interface StoredField {
   values: Float32Array;
 }
 
+/**
+ * Grids travel to and from PGlite as base64 text, decoded and encoded by PostgreSQL itself: PGlite's own
+ * bytea parameters and results go through a hex text form in JavaScript that is many times slower
+ * (a season of 200 × 200 grids took minutes; see `npm run bench:anomalies`).
+ */
+const toBytea = (values: Buffer) => sql`decode(${values.toString('base64')}, 'base64')`;
+const fromBytea = (column: typeof anomalyFields.values | typeof anomalyClimatologies.values) =>
+  sql<string>`encode(${column}, 'base64')`;
+const float32 = (base64: string) => new Float32Array(Uint8Array.from(Buffer.from(base64, 'base64')).buffer);
+
 @Injectable()
 export class AnomaliesRepository {
   constructor(@Inject(DATABASE) private readonly handle: DatabaseHandle) {}
@@ -31,7 +41,7 @@ export class AnomaliesRepository {
   async upsert(row: typeof anomalyFields.$inferInsert, tx: Executor): Promise<void> {
     await tx
       .insert(anomalyFields)
-      .values(row)
+      .values({ ...row, values: toBytea(row.values) })
       .onConflictDoUpdate({
         target: [anomalyFields.product, anomalyFields.variable, anomalyFields.levelHpa, anomalyFields.date],
         set: {
@@ -42,7 +52,7 @@ export class AnomaliesRepository {
           lat0: row.lat0,
           dLon: row.dLon,
           dLat: row.dLat,
-          values: row.values,
+          values: sql`excluded.values`,
           sourceFile: row.sourceFile,
           derivation: row.derivation ?? 'anomaly',
           climatologyFile: row.climatologyFile ?? null,
@@ -54,7 +64,7 @@ export class AnomaliesRepository {
   async upsertClimatology(row: typeof anomalyClimatologies.$inferInsert, tx: Executor): Promise<void> {
     await tx
       .insert(anomalyClimatologies)
-      .values(row)
+      .values({ ...row, values: toBytea(row.values) })
       .onConflictDoUpdate({
         target: [anomalyClimatologies.variable, anomalyClimatologies.levelHpa, anomalyClimatologies.key],
         set: {
@@ -65,7 +75,7 @@ export class AnomaliesRepository {
           lat0: row.lat0,
           dLon: row.dLon,
           dLat: row.dLat,
-          values: row.values,
+          values: sql`excluded.values`,
           sourceFile: row.sourceFile,
         },
       });
@@ -74,7 +84,7 @@ export class AnomaliesRepository {
   /** Every stored climatology band of a variable and level. */
   async climatology(variable: AnomalyVariable, levelHpa: number): Promise<ClimatologyField[]> {
     const rows = await this.handle.db
-      .select()
+      .select({ ...getTableColumns(anomalyClimatologies), values: fromBytea(anomalyClimatologies.values) })
       .from(anomalyClimatologies)
       .where(and(eq(anomalyClimatologies.variable, variable), eq(anomalyClimatologies.levelHpa, levelHpa)));
     return rows.map((r) => ({
@@ -82,7 +92,7 @@ export class AnomaliesRepository {
       levelHpa: r.levelHpa,
       key: r.key,
       grid: { nx: r.nx, ny: r.ny, lon0: r.lon0, lat0: r.lat0, dLon: r.dLon, dLat: r.dLat },
-      values: new Float32Array(Uint8Array.from(r.values).buffer),
+      values: float32(r.values),
       sourceFile: r.sourceFile,
     }));
   }
@@ -122,7 +132,7 @@ export class AnomaliesRepository {
     if (from) where.push(gte(anomalyFields.date, from));
     if (to) where.push(lte(anomalyFields.date, to));
     const rows = await this.handle.db
-      .select()
+      .select({ ...getTableColumns(anomalyFields), values: fromBytea(anomalyFields.values) })
       .from(anomalyFields)
       .where(and(...where))
       .orderBy(asc(anomalyFields.date));
@@ -135,8 +145,7 @@ export class AnomaliesRepository {
       lat0: r.lat0,
       dLon: r.dLon,
       dLat: r.dLat,
-      // Copy: the driver's buffer may not be 4-byte aligned.
-      values: new Float32Array(Uint8Array.from(r.values).buffer),
+      values: float32(r.values),
     }));
   }
 
