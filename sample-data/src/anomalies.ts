@@ -1,4 +1,4 @@
-import { ANOMALY_GRID, ANOMALY_PARAMS, SITE } from './config.js';
+import { ANOMALY_GRID, ANOMALY_PARAMS, FORECAST_WEEK, SITE } from './config.js';
 import { RadarProjection } from './geo.js';
 import { Rng, ValueNoise } from './prng.js';
 
@@ -147,4 +147,53 @@ export function windFromDeg(u: number, v: number): number {
   if (u === 0 && v === 0) return 0;
   const d = (Math.atan2(-u, -v) * 180) / Math.PI;
   return (d + 360) % 360;
+}
+
+/** The dates of the forecast week (FORECAST_WEEK), YYYY-MM-DD. */
+export function forecastDates(): string[] {
+  const first = Date.parse(`${FORECAST_WEEK.firstDate}T00:00:00Z`);
+  return Array.from({ length: FORECAST_WEEK.days }, (_, d) =>
+    new Date(first + d * 86_400_000).toISOString().slice(0, 10),
+  );
+}
+
+/**
+ * Forecast anomalies for the coming week: a moist south-easterly spell on the season's grid, from the
+ * streams `forecast-anomalies` and `forecast-texture` (the season's streams are left alone).
+ */
+export function generateForecastAnomalies(
+  seed: number,
+  dates: string[] = forecastDates(),
+): Pick<AnomalyGrids, 'dates' | 'lons' | 'lats' | 'fields'> {
+  const F = FORECAST_WEEK;
+  const r = new Rng(seed, 'forecast-anomalies');
+  const texture = new ValueNoise(seed, 'forecast-texture');
+  const lons = gridAxis(ANOMALY_GRID.west, ANOMALY_GRID.east, ANOMALY_GRID.step);
+  const lats = gridAxis(ANOMALY_GRID.south, ANOMALY_GRID.north, ANOMALY_GRID.step).reverse();
+  const nx = lons.length;
+  const ny = lats.length;
+  const fields: Record<AnomalyVariable, Float32Array[]> = { q: [], u: [], v: [] };
+  const round = (val: number, k: number) => Math.round(val * 10 ** k) / 10 ** k;
+  dates.forEach((_, d) => {
+    const q0 = F.qMeanGKg + F.qSigmaGKg * r.normal();
+    const from = ((F.fromDeg + F.fromSigmaDeg * r.normal()) * Math.PI) / 180;
+    const speed = F.speedMS * (0.8 + 0.4 * r.uniform());
+    const u0 = -speed * Math.sin(from);
+    const v0 = -speed * Math.cos(from);
+    const q = new Float32Array(nx * ny);
+    const u = new Float32Array(nx * ny);
+    const v = new Float32Array(nx * ny);
+    for (let j = 0; j < ny; j++)
+      for (let i = 0; i < nx; i++) {
+        const k = j * nx + i;
+        const t = (o: number) => texture.fractal(lons[i] * 1.3 + o + 11.1 * d, lats[j] * 1.3 - o, 1, 2);
+        q[k] = round(q0 + ANOMALY_PARAMS.textureSigma.q * 2 * t(0), ANOMALY_DECIMALS.q);
+        u[k] = round(u0 + ANOMALY_PARAMS.textureSigma.wind * 2 * t(500), ANOMALY_DECIMALS.u);
+        v[k] = round(v0 + ANOMALY_PARAMS.textureSigma.wind * 2 * t(900), ANOMALY_DECIMALS.v);
+      }
+    fields.q.push(q);
+    fields.u.push(u);
+    fields.v.push(v);
+  });
+  return { dates, lons, lats, fields };
 }

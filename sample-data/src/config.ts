@@ -121,6 +121,22 @@ export const ANOMALY_PARAMS = {
   textureSigma: { q: 0.12, wind: 0.25 },
 } as const;
 
+/**
+ * Forecast anomaly grids of one coming week right after the season (a moist south-easterly spell), for
+ * the Outlook's expected regime. Drawn from their own random stream, so the season's files do not change.
+ */
+export const FORECAST_WEEK = {
+  firstDate: '2025-10-01',
+  days: 7,
+  /** domain-mean q′ (g/kg) of the spell and its day-to-day spread */
+  qMeanGKg: 1.4,
+  qSigmaGKg: 0.3,
+  /** the anomaly wind blows from the south-east (onshore), with a little scatter of direction and speed */
+  fromDeg: 145,
+  fromSigmaDeg: 12,
+  speedMS: 3.2,
+} as const;
+
 /** Parameters of the convective-cell population (see README "Storm model"). */
 export const STORM_PARAMS = {
   /** model domain: births anywhere within this distance of the radar (km); cells die beyond domainKm + 20 */

@@ -5,6 +5,8 @@ import {
   ANOMALY_QUANTITIES,
   ANOMALY_UNITS,
   ANOMALY_VARIABLES,
+  type AnomalyGrids,
+  generateForecastAnomalies,
   windFromDeg,
 } from './anomalies.js';
 import { measureCell } from './cellprops.js';
@@ -273,8 +275,11 @@ function anomalyCsvText(sc: Scenario): string {
   return `${lines.join('\n')}\n`;
 }
 
-function anomalyTiff(sc: Scenario, v: (typeof ANOMALY_VARIABLES)[number]): Buffer {
-  const A = sc.anomalies;
+function anomalyTiff(
+  A: Pick<AnomalyGrids, 'dates' | 'lons' | 'lats' | 'fields'>,
+  v: (typeof ANOMALY_VARIABLES)[number],
+  product?: string,
+): Buffer {
   const nx = A.lons.length;
   const ny = A.lats.length;
   const bands = A.dates.length;
@@ -293,6 +298,7 @@ function anomalyTiff(sc: Scenario, v: (typeof ANOMALY_VARIABLES)[number]): Buffe
     { name: 'DATE_REFERENCE', value: `local dates (UTC${UTC_OFFSET_TEXT}), daily means` },
     { name: 'SCENARIO', value: SCENARIO_NAME },
   ];
+  if (product) items.push({ name: 'PRODUCT', value: product });
   A.dates.forEach((date, d) => {
     items.push({ name: 'DATE', sample: d, value: date });
     items.push({ name: 'DESCRIPTION', sample: d, role: 'description', value: date });
@@ -458,7 +464,14 @@ export function writeScenario(sc: Scenario, outDir: string, options: WriteOption
   put(`scans-${year}.csv`, scansCsv);
   put(`anomalies-${year}.csv`, anomCsv);
   for (const v of ANOMALY_VARIABLES)
-    put(`anomalies-${year}-${v}${ANOMALY_GRID.levelHpa}.tif`, anomalyTiff(sc, v));
+    put(`anomalies-${year}-${v}${ANOMALY_GRID.levelHpa}.tif`, anomalyTiff(sc.anomalies, v));
+  // The coming week's forecast grids, after the season (their own random stream).
+  const forecast = generateForecastAnomalies(sc.seed);
+  for (const v of ANOMALY_VARIABLES)
+    put(
+      `forecast-${forecast.dates[0]}-${v}${ANOMALY_GRID.levelHpa}.tif`,
+      anomalyTiff(forecast, v, 'forecast: daily mean anomalies of a coming week'),
+    );
 
   // The radar run: column maxima for every scan, volumes for the stormiest consecutive scans.
   const runDir = `run-${sc.run.localDate.replaceAll('-', '')}`;

@@ -13,6 +13,7 @@ import { fileURLToPath } from 'node:url';
 import { aeqdKeys, encodeGeoTiff, gdalMetadataXml } from '../../sample-data/src/tiff.js';
 import { readReflectivityTiff } from '../src/intake/geotiff-reader.js';
 import { sitePlane } from '../src/radar/engine/site-plane.js';
+import { startServer } from './bench-server.js';
 import { syntheticVolume } from './synthetic-volume.js';
 
 const SITE = { lat: 14.18, lon: 87.95 };
@@ -107,34 +108,6 @@ async function readComparison(files: string[]): Promise<number> {
     `read 20 × 500 × 500 float32 DEFLATE volume: Stormhour ${median(ours).toFixed(1)} ms, GDAL ${median(theirs).toFixed(1)} ms, ratio ${median(ratios).toFixed(2)}`,
   );
   return median(ratios);
-}
-
-/** The built server as `npm start` runs it, on a scratch data folder with the demo accounts only. */
-async function startServer(dir: string) {
-  const port = 3900 + Math.floor(Math.random() * 90);
-  const env = {
-    ...process.env,
-    PORT: String(port),
-    DATA_DIR: join(dir, 'data'),
-    DEMO: '1',
-    DEMO_DATA_DIR: join(dir, 'none'),
-    UPLOAD_LIMIT_MB: '200',
-  };
-  const server = spawn(process.execPath, ['server/dist/main.js'], {
-    env,
-    stdio: ['ignore', 'ignore', 'inherit'],
-  });
-  const base = `http://127.0.0.1:${port}`;
-  // Migrating a fresh database takes a few seconds, longer on a busy machine.
-  for (let i = 0; i < 900; i++) {
-    try {
-      if ((await fetch(`${base}/api/health`)).ok) return { base, server };
-    } catch {
-      // starting
-    }
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error('the server did not start');
 }
 
 function pollFigures(ms: number[]): string {

@@ -3,6 +3,11 @@ import { z } from 'zod';
 export const INTAKE_KINDS = ['volume', 'column-max', 'cell-table', 'scan-inventory', 'anomaly-grid'] as const;
 export type IntakeKind = (typeof INTAKE_KINDS)[number];
 
+export const ANOMALY_PRODUCTS = ['analysis', 'forecast'] as const;
+export type AnomalyProduct = (typeof ANOMALY_PRODUCTS)[number];
+export const FIELD_KINDS = ['anomaly', 'total', 'climatology'] as const;
+export type FieldKind = (typeof FIELD_KINDS)[number];
+
 /** Our names for the columns of a cell table; the user maps their file's columns onto these. */
 export const CELL_TABLE_FIELDS = [
   'scan_time',
@@ -102,6 +107,14 @@ export const IntakeRequest = z
     variable: z.enum(['q', 'u', 'v']).optional(),
     /** Anomaly grids: the file's units, when its metadata does not say (UNITS); converted on intake. */
     units: z.enum(['g/kg', 'kg/kg', 'm/s', 'kt']).optional(),
+    /** Anomaly grids: an analysis of past days, or a forecast of coming days (kept apart). */
+    product: z.enum(ANOMALY_PRODUCTS).default('analysis'),
+    /**
+     * Anomaly grids: the values are anomalies; totals (turned into anomalies against the stored
+     * climatology of the same variable, level and grid); or that climatology (one band per month or
+     * day of the year), which must be uploaded before the totals.
+     */
+    fieldKind: z.enum(FIELD_KINDS).default('anomaly'),
   })
   .strict();
 export type IntakeRequest = z.infer<typeof IntakeRequest>;

@@ -94,3 +94,18 @@ export interface ExpectedRegimeResponse {
   regime: string | null;
   moistureBoundsGKg: [number, number] | null;
 }
+
+/** One source of stored anomaly fields (`GET /api/regimes/sources`): what they are and where from. */
+export interface AnomalySource {
+  /** Analyses of past days feed the regimes; forecasts only the expected regime of a coming period. */
+  product: 'analysis' | 'forecast';
+  variable: AnomalyVariable;
+  sourceFile: string;
+  /** Uploaded as anomalies, or computed on intake as totals minus the stored climatology. */
+  derivation: 'anomaly' | 'total-minus-climatology';
+  /** The climatology's source file, for fields computed from totals. */
+  climatologyFile: string | null;
+  days: number;
+  first: string;
+  last: string;
+}

@@ -71,4 +71,6 @@ export const api = {
   regimes: '/api/regimes',
   regimeComposite: '/api/regimes/composite',
   regimeSettings: '/api/regimes/settings',
+  regimeExpected: '/api/regimes/expected',
+  regimeSources: '/api/regimes/sources',
 } as const;

@@ -40,6 +40,8 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'GET /api/regimes': ['scientist', 'writer'],
   'GET /api/regimes/composite': ['scientist', 'writer'],
   'GET /api/regimes/settings': ['scientist', 'writer'],
+  'GET /api/regimes/expected': ['scientist', 'writer'],
+  'GET /api/regimes/sources': ['scientist', 'writer'],
   'PUT /api/regimes/settings': ['scientist'],
 };
 

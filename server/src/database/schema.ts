@@ -296,8 +296,43 @@ export const anomalyFields = pgTable(
     dLat: doublePrecision('d_lat').notNull(),
     values: bytea('values').notNull(),
     sourceFile: text('source_file').notNull(),
+    /** An analysis of a past day, or a forecast; the two never replace or mix with each other. */
+    product: text('product', { enum: ['analysis', 'forecast'] })
+      .notNull()
+      .default('analysis'),
+    /** Uploaded as anomalies, or computed here as totals minus a stored climatology. */
+    derivation: text('derivation', { enum: ['anomaly', 'total-minus-climatology'] })
+      .notNull()
+      .default('anomaly'),
+    /** The climatology's source file, for fields computed from totals. */
+    climatologyFile: text('climatology_file'),
   },
-  (t) => [uniqueIndex('anomaly_fields_key_idx').on(t.variable, t.levelHpa, t.date)],
+  (t) => [uniqueIndex('anomaly_fields_key_idx').on(t.product, t.variable, t.levelHpa, t.date)],
+);
+
+/**
+ * A climatology of totals on a regular lon–lat grid (as anomaly_fields), one row per calendar month
+ * ("06") or day of the year ("06-15"); totals uploaded later are turned into anomalies against it.
+ */
+export const anomalyClimatologies = pgTable(
+  'anomaly_climatologies',
+  {
+    id: serial('id').primaryKey(),
+    uploadId: integer('upload_id').references(() => uploads.id),
+    variable: text('variable', { enum: ['q', 'u', 'v'] }).notNull(),
+    levelHpa: integer('level_hpa').notNull(),
+    /** "MM" for a month, "MM-DD" for a day of the year. */
+    key: text('key').notNull(),
+    nx: integer('nx').notNull(),
+    ny: integer('ny').notNull(),
+    lon0: doublePrecision('lon0').notNull(),
+    lat0: doublePrecision('lat0').notNull(),
+    dLon: doublePrecision('d_lon').notNull(),
+    dLat: doublePrecision('d_lat').notNull(),
+    values: bytea('values').notNull(),
+    sourceFile: text('source_file').notNull(),
+  },
+  (t) => [uniqueIndex('anomaly_climatologies_key_idx').on(t.variable, t.levelHpa, t.key)],
 );
 
 export const regimeSettings = pgTable(

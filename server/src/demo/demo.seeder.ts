@@ -82,10 +82,17 @@ export class DemoSeeder implements OnApplicationBootstrap {
     const site = await this.sites.create(null, CreateSiteRequest.parse(siteJson.createSiteRequest));
     const files = readdirSync(dir);
     const runDir = files.find((f) => f.startsWith('run-'));
-    const steps: [kind: 'scan-inventory' | 'cell-table' | 'volume' | 'anomaly-grid', paths: string[]][] = [
-      ['anomaly-grid', files.filter((f) => /^anomalies-.*\.tif$/.test(f)).map((f) => join(dir, f))],
-      ['scan-inventory', files.filter((f) => /^scans-.*\.csv$/.test(f)).map((f) => join(dir, f))],
-      ['cell-table', files.filter((f) => /^cells-.*\.csv$/.test(f)).map((f) => join(dir, f))],
+    const at = (re: RegExp) => files.filter((f) => re.test(f)).map((f) => join(dir, f));
+    const steps: [
+      kind: 'scan-inventory' | 'cell-table' | 'volume' | 'anomaly-grid',
+      paths: string[],
+      product?: 'forecast',
+    ][] = [
+      ['anomaly-grid', at(/^anomalies-.*\.tif$/)],
+      // The coming week's forecast grids, kept apart from the analyses (for the Outlook's expected regime).
+      ['anomaly-grid', at(/^forecast-.*\.tif$/), 'forecast'],
+      ['scan-inventory', at(/^scans-.*\.csv$/)],
+      ['cell-table', at(/^cells-.*\.csv$/)],
       [
         'volume',
         runDir
@@ -97,7 +104,7 @@ export class DemoSeeder implements OnApplicationBootstrap {
       ],
     ];
     const summary: string[] = [];
-    for (const [kind, paths] of steps) {
+    for (const [kind, paths, product] of steps) {
       if (paths.length === 0) continue;
       const t = Date.now();
       const incoming = paths.map((p) => {
@@ -106,11 +113,19 @@ export class DemoSeeder implements OnApplicationBootstrap {
       });
       const { job, done } = await this.intake.submit(
         null,
-        { siteId: site.id, kind, onError: 'skip' },
+        {
+          siteId: site.id,
+          kind,
+          onError: 'skip',
+          product: product ?? 'analysis',
+          fieldKind: 'anomaly',
+        },
         incoming,
       );
       await done;
-      summary.push(`${kind} ${paths.length} file(s) in ${Date.now() - t} ms (job ${job.id})`);
+      summary.push(
+        `${product ? `${product} ` : ''}${kind} ${paths.length} file(s) in ${Date.now() - t} ms (job ${job.id})`,
+      );
     }
     return summary.length ? `; radar site ${site.code}: ${summary.join(', ')}` : '';
   }

@@ -37,7 +37,29 @@ describe('parseAnomalyCsv', () => {
     expect(fields.find((f) => f.variable === 'q')?.conversion).toBe('no units given: read as g/kg');
   });
 
+  it('converts a units column row by row: kg/kg to g/kg (× 1000) and knots to m/s', () => {
+    const text =
+      'date,lat,lon,variable,level_hpa,value,units\n2025-06-01,14,88,q,850,0.0012,kg/kg\n2025-06-01,14,88,u,850,4,kt\n';
+    const fields = parseAnomalyCsv(text);
+    // 1 kg/kg = 1000 g/kg (SI prefixes); 1 kt = 1852 m / 3600 s (definition of the knot).
+    expect(fields.find((f) => f.variable === 'q')?.days[0].values[0]).toBeCloseTo(1.2, 5);
+    expect(fields.find((f) => f.variable === 'u')?.days[0].values[0]).toBeCloseTo(4 * 0.514444, 5);
+    expect(fields.find((f) => f.variable === 'q')?.conversion).toBe('kg/kg × 1000.00 → g/kg');
+  });
+
   it.each([
+    [
+      'mixed units in one upload',
+      'date,lat,lon,variable,level_hpa,value,units\n2025-06-01,14,88,q,850,1,g/kg\n2025-06-02,14,88,q,850,0.001,kg/kg\n',
+      'row 3, column "units"',
+      /mixed units for q in one upload: kg\/kg here, g\/kg on row 2/,
+    ],
+    [
+      'a duplicate date at one point',
+      'date,lat,lon,variable,level_hpa,value\n2025-06-01,14,88,q,850,1\n2025-06-01,14,88,q,850,2\n',
+      'row 3',
+      /repeats 2025-06-01, 14° N, 88° E, q at 850 hPa of row 2/,
+    ],
     ['a missing column', 'date,lat,lon,value\n', 'header', /missing column\(s\) variable, level_hpa/],
     [
       'a bad date',

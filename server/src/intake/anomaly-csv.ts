@@ -1,6 +1,6 @@
 import type { AnomalyVariable } from '@stormhour/shared';
 import Papa from 'papaparse';
-import type { AnomalyFile, AnomalyUnits } from './anomaly-reader.js';
+import { type AnomalyFile, type AnomalyUnits, unitsOf } from './anomaly-reader.js';
 import { FileProblem } from './geotiff-reader.js';
 
 const COLUMNS = ['date', 'lat', 'lon', 'variable', 'level_hpa', 'value'] as const;
@@ -45,7 +45,10 @@ export function parseAnomalyCsv(text: string, units?: AnomalyUnits): AnomalyFile
     variable: AnomalyVariable;
     level: number;
     value: number;
+    row: number;
   }[] = [];
+  // An optional "units" column: one unit per variable in a file, so values are never mixed up.
+  const unitsByVariable = new Map<string, { units: AnomalyUnits; row: number }>();
   parsed.data.forEach((raw, i) => {
     const r = Object.fromEntries(
       Object.entries(raw).map(([k, v]) => [k.trim().toLowerCase(), (v ?? '').trim()]),
@@ -64,7 +67,33 @@ export function parseAnomalyCsv(text: string, units?: AnomalyUnits): AnomalyFile
     if (!['q', 'u', 'v'].includes(r.variable)) ok = !bad('variable', `"${r.variable}" is not one of q, u, v`);
     if (!Number.isFinite(level)) ok = !bad('level_hpa', `"${r.level_hpa}" is not a number`);
     if (r.value !== '' && !Number.isFinite(value)) ok = !bad('value', `"${r.value}" is not a number`);
-    if (ok) rows.push({ date: r.date, lat, lon, variable: r.variable as AnomalyVariable, level, value });
+    let factorUnits: AnomalyUnits | undefined;
+    if (ok && r.units !== undefined && r.units !== '') {
+      const stated = unitsOf(r.units);
+      if (!stated) ok = !bad('units', `"${r.units}" is not one of g/kg, kg/kg, m/s, kt`);
+      else if ((r.variable === 'q') !== (stated === 'g/kg' || stated === 'kg/kg'))
+        ok = !bad('units', `${stated} are not units of ${r.variable}`);
+      else {
+        const first = unitsByVariable.get(r.variable);
+        if (!first) unitsByVariable.set(r.variable, { units: stated, row: i + 2 });
+        else if (first.units !== stated)
+          ok = !bad(
+            'units',
+            `mixed units for ${r.variable} in one upload: ${stated} here, ${first.units} on row ${first.row}; convert the file to one unit per variable`,
+          );
+        factorUnits = stated;
+      }
+    }
+    if (ok)
+      rows.push({
+        date: r.date,
+        lat,
+        lon,
+        variable: r.variable as AnomalyVariable,
+        level,
+        value: factorUnits ? value * FACTOR[factorUnits] : value,
+        row: i + 2,
+      });
   });
   if (problems.length) throw new FileProblem(problems[0].where, problems[0].problem, problems);
   if (rows.length === 0) throw new FileProblem(null, 'the file has a header but no rows');
@@ -77,26 +106,39 @@ export function parseAnomalyCsv(text: string, units?: AnomalyUnits): AnomalyFile
   const ny = lats.length;
   // One unit choice cannot fit humidity and wind at once: it applies to the variables it fits.
   const fits = (v: AnomalyVariable, u: AnomalyUnits) => (v === 'q') === (u === 'g/kg' || u === 'kg/kg');
-  const groups = new Map<string, { file: AnomalyFile; factor: number; days: Map<string, Float32Array> }>();
+  const groups = new Map<
+    string,
+    {
+      file: AnomalyFile;
+      factor: number;
+      days: Map<string, Float32Array>;
+      rowOf: Map<string, Map<number, number>>;
+    }
+  >();
   for (const r of rows) {
     const key = `${r.variable}@${r.level}`;
     let group = groups.get(key);
     if (!group) {
       const canonical: AnomalyUnits = r.variable === 'q' ? 'g/kg' : 'm/s';
-      const unit = units && fits(r.variable, units) ? units : canonical;
+      const inFile = unitsByVariable.get(r.variable)?.units;
+      const unit = inFile ?? (units && fits(r.variable, units) ? units : canonical);
       const conversion =
-        !units || !fits(r.variable, units)
+        !inFile && (!units || !fits(r.variable, units))
           ? `no units given: read as ${canonical}`
           : FACTOR[unit] === 1
             ? `already in ${canonical}`
             : `${unit} × ${FACTOR[unit].toPrecision(6)} → ${canonical}`;
       group = {
-        factor: FACTOR[unit],
+        // Values with a units column were converted row by row above.
+        factor: inFile ? 1 : FACTOR[unit],
         days: new Map(),
+        rowOf: new Map(),
         file: {
           variable: r.variable,
           levelHpa: r.level,
           conversion,
+          reprojection: null,
+          climatology: null,
           grid: {
             nx,
             ny,
@@ -114,10 +156,21 @@ export function parseAnomalyCsv(text: string, units?: AnomalyUnits): AnomalyFile
     if (!values) {
       values = new Float32Array(nx * ny).fill(Number.NaN);
       group.days.set(r.date, values);
-      group.file.days.push({ date: r.date, values });
+      group.file.days.push({ date: r.date, where: `date ${r.date}`, values });
+      group.rowOf.set(r.date, new Map());
     }
-    values[(row.get(r.lat) as number) * nx + (col.get(r.lon) as number)] = r.value * group.factor;
+    const cell = (row.get(r.lat) as number) * nx + (col.get(r.lon) as number);
+    const seen = group.rowOf.get(r.date) as Map<number, number>;
+    const earlier = seen.get(cell);
+    if (earlier !== undefined && problems.length < 50)
+      problems.push({
+        where: `row ${r.row}`,
+        problem: `repeats ${r.date}, ${r.lat}° N, ${r.lon}° E, ${r.variable} at ${r.level} hPa of row ${earlier}`,
+      });
+    seen.set(cell, r.row);
+    values[cell] = r.value * group.factor;
   }
+  if (problems.length) throw new FileProblem(problems[0].where, problems[0].problem, problems);
   const files = [...groups.values()].map((g) => g.file);
   for (const f of files) f.days.sort((a, b) => a.date.localeCompare(b.date));
   return files;

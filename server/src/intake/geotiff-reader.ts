@@ -73,6 +73,18 @@ export function crsFromGeoKeys(keys: Record<string, unknown> | null): string {
   return `+proj=aeqd +lat_0=${lat} +lon_0=${lon} +x_0=${fe} +y_0=${fn} +datum=WGS84 +units=m +no_defs`;
 }
 
+/** The outer corner of the first pixel and the pixel size, in the file's CRS (tie point and pixel scale). */
+export function pixelPlacement(image: GeoTIFFImage): { origin: number[]; resolution: number[] } {
+  try {
+    return { origin: image.getOrigin(), resolution: image.getResolution() };
+  } catch {
+    throw new FileProblem(
+      'ModelTiepointTag',
+      'the file has GeoKeys but no tie point and pixel scale to place its pixels',
+    );
+  }
+}
+
 function numberList(v: unknown): number[] | null {
   if (typeof v !== 'string' || v.trim() === '') return null;
   const list = v.split(/[,\s]+/).map(Number);
@@ -144,17 +156,7 @@ export async function readReflectivityTiff(content: Buffer, opts: ReadOptions): 
   const ny = image.getHeight();
   const bands = image.getSamplesPerPixel();
   const crs = crsFromGeoKeys(image.getGeoKeys() as Record<string, unknown> | null);
-  let origin: number[];
-  let resolution: number[];
-  try {
-    origin = image.getOrigin();
-    resolution = image.getResolution();
-  } catch {
-    throw new FileProblem(
-      'ModelTiepointTag',
-      'the file has GeoKeys but no tie point and pixel scale to place its pixels',
-    );
-  }
+  const { origin, resolution } = pixelPlacement(image);
   const fileMeta = (await image.getGDALMetadata(null)) ?? {};
   if (opts.kind === 'column-max' && bands !== 1)
     throw new FileProblem(null, `a column-maximum field has one band, this file has ${bands}`);

@@ -97,9 +97,13 @@ export class IntakeService implements OnModuleInit {
         ? [
             ANOMALY_INTAKE_JOB,
             {
+              siteId: site.id,
               onError: req.onError,
               variable: req.variable,
               units: req.units,
+              product: req.product,
+              fieldKind: req.fieldKind,
+              timePattern: req.timePattern,
               files: fileRefs,
             } satisfies AnomalyIntakeParams,
           ]

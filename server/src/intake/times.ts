@@ -49,9 +49,10 @@ export function parseTime(text: string, zone = 'UTC'): number | null {
 
 /**
  * Reads a scan time from a file name with a pattern such as "VSR_YYYYMMDD_hhmm.tif" (tokens YYYY MM DD
- * hh mm ss; other characters must match exactly). Times are UTC.
+ * hh mm ss; other characters must match exactly). Times are UTC. With `dateOnly`, a pattern with no
+ * hh mm gives midnight UTC of its date.
  */
-export function timeFromFileName(fileName: string, pattern: string): number | null {
+export function timeFromFileName(fileName: string, pattern: string, dateOnly = false): number | null {
   const tokens = ['YYYY', 'MM', 'DD', 'hh', 'mm', 'ss'];
   let regex = '';
   const order: string[] = [];
@@ -69,6 +70,9 @@ export function timeFromFileName(fileName: string, pattern: string): number | nu
   const m = new RegExp(`^${regex}$`).exec(fileName);
   if (!m) return null;
   const v = Object.fromEntries(order.map((t, k) => [t, m[k + 1]]));
-  if (!v.YYYY || !v.MM || !v.DD || !v.hh || !v.mm) return null;
+  if (!v.YYYY || !v.MM || !v.DD) return null;
+  // A daily file names its first day only: midnight UTC stands for the date.
+  if (dateOnly && !v.hh) return parseTime(`${v.YYYY}-${v.MM}-${v.DD}T00:00:00`, 'UTC');
+  if (!v.hh || !v.mm) return null;
   return parseTime(`${v.YYYY}-${v.MM}-${v.DD}T${v.hh}:${v.mm}:${v.ss ?? '00'}`, 'UTC');
 }

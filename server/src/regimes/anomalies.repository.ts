@@ -1,8 +1,11 @@
 import { Inject, Injectable } from '@nestjs/common';
-import type { AnomalyVariable, RegimeSettings } from '@stormhour/shared';
-import { and, asc, desc, eq, gte, lte, sql } from 'drizzle-orm';
+import type { AnomalySource, AnomalyVariable, RegimeSettings } from '@stormhour/shared';
+import { and, asc, desc, eq, getTableColumns, gte, lte, sql } from 'drizzle-orm';
 import { DATABASE, type DatabaseHandle, type Executor } from '../database/database.js';
-import { anomalyFields, regimeSettings } from '../database/schema.js';
+import { anomalyClimatologies, anomalyFields, regimeSettings } from '../database/schema.js';
+import type { ClimatologyField } from '../intake/anomaly-climatology.js';
+
+export type AnomalyProduct = 'analysis' | 'forecast';
 
 export interface StoredField {
   variable: AnomalyVariable;
@@ -16,6 +19,16 @@ export interface StoredField {
   values: Float32Array;
 }
 
+/**
+ * Grids travel to and from PGlite as base64 text, decoded and encoded by PostgreSQL itself: PGlite's own
+ * bytea parameters and results go through a hex text form in JavaScript that is many times slower
+ * (a season of 200 × 200 grids took minutes; see `npm run bench:anomalies`).
+ */
+const toBytea = (values: Buffer) => sql`decode(${values.toString('base64')}, 'base64')`;
+const fromBytea = (column: typeof anomalyFields.values | typeof anomalyClimatologies.values) =>
+  sql<string>`encode(${column}, 'base64')`;
+const float32 = (base64: string) => new Float32Array(Uint8Array.from(Buffer.from(base64, 'base64')).buffer);
+
 @Injectable()
 export class AnomaliesRepository {
   constructor(@Inject(DATABASE) private readonly handle: DatabaseHandle) {}
@@ -24,13 +37,13 @@ export class AnomaliesRepository {
     return this.handle.db.transaction(work);
   }
 
-  /** Stores a day's field; a later upload of the same variable, level and date replaces it. */
+  /** Stores a day's field; a later upload of the same product, variable, level and date replaces it. */
   async upsert(row: typeof anomalyFields.$inferInsert, tx: Executor): Promise<void> {
     await tx
       .insert(anomalyFields)
-      .values(row)
+      .values({ ...row, values: toBytea(row.values) })
       .onConflictDoUpdate({
-        target: [anomalyFields.variable, anomalyFields.levelHpa, anomalyFields.date],
+        target: [anomalyFields.product, anomalyFields.variable, anomalyFields.levelHpa, anomalyFields.date],
         set: {
           uploadId: row.uploadId,
           nx: row.nx,
@@ -39,18 +52,87 @@ export class AnomaliesRepository {
           lat0: row.lat0,
           dLon: row.dLon,
           dLat: row.dLat,
-          values: row.values,
+          values: sql`excluded.values`,
+          sourceFile: row.sourceFile,
+          derivation: row.derivation ?? 'anomaly',
+          climatologyFile: row.climatologyFile ?? null,
+        },
+      });
+  }
+
+  /** Stores a climatology band; a later upload of the same variable, level and month or day replaces it. */
+  async upsertClimatology(row: typeof anomalyClimatologies.$inferInsert, tx: Executor): Promise<void> {
+    await tx
+      .insert(anomalyClimatologies)
+      .values({ ...row, values: toBytea(row.values) })
+      .onConflictDoUpdate({
+        target: [anomalyClimatologies.variable, anomalyClimatologies.levelHpa, anomalyClimatologies.key],
+        set: {
+          uploadId: row.uploadId,
+          nx: row.nx,
+          ny: row.ny,
+          lon0: row.lon0,
+          lat0: row.lat0,
+          dLon: row.dLon,
+          dLat: row.dLat,
+          values: sql`excluded.values`,
           sourceFile: row.sourceFile,
         },
       });
   }
 
-  async fields(levelHpa: number, from?: string, to?: string): Promise<StoredField[]> {
-    const where = [eq(anomalyFields.levelHpa, levelHpa)];
+  /** Every stored climatology band of a variable and level. */
+  async climatology(variable: AnomalyVariable, levelHpa: number): Promise<ClimatologyField[]> {
+    const rows = await this.handle.db
+      .select({ ...getTableColumns(anomalyClimatologies), values: fromBytea(anomalyClimatologies.values) })
+      .from(anomalyClimatologies)
+      .where(and(eq(anomalyClimatologies.variable, variable), eq(anomalyClimatologies.levelHpa, levelHpa)));
+    return rows.map((r) => ({
+      variable: r.variable,
+      levelHpa: r.levelHpa,
+      key: r.key,
+      grid: { nx: r.nx, ny: r.ny, lon0: r.lon0, lat0: r.lat0, dLon: r.dLon, dLat: r.dLat },
+      values: float32(r.values),
+      sourceFile: r.sourceFile,
+    }));
+  }
+
+  /** Where the stored fields came from: per product, variable, source file and derivation, with their days. */
+  async sources(levelHpa: number): Promise<AnomalySource[]> {
+    return this.handle.db
+      .select({
+        product: anomalyFields.product,
+        variable: anomalyFields.variable,
+        sourceFile: anomalyFields.sourceFile,
+        derivation: anomalyFields.derivation,
+        climatologyFile: anomalyFields.climatologyFile,
+        days: sql<number>`count(*)::int`,
+        first: sql<string>`min(${anomalyFields.date})`,
+        last: sql<string>`max(${anomalyFields.date})`,
+      })
+      .from(anomalyFields)
+      .where(eq(anomalyFields.levelHpa, levelHpa))
+      .groupBy(
+        anomalyFields.product,
+        anomalyFields.variable,
+        anomalyFields.sourceFile,
+        anomalyFields.derivation,
+        anomalyFields.climatologyFile,
+      )
+      .orderBy(asc(anomalyFields.product), asc(anomalyFields.variable), asc(anomalyFields.sourceFile));
+  }
+
+  async fields(
+    levelHpa: number,
+    from?: string,
+    to?: string,
+    product: AnomalyProduct = 'analysis',
+  ): Promise<StoredField[]> {
+    const where = [eq(anomalyFields.levelHpa, levelHpa), eq(anomalyFields.product, product)];
     if (from) where.push(gte(anomalyFields.date, from));
     if (to) where.push(lte(anomalyFields.date, to));
     const rows = await this.handle.db
-      .select()
+      .select({ ...getTableColumns(anomalyFields), values: fromBytea(anomalyFields.values) })
       .from(anomalyFields)
       .where(and(...where))
       .orderBy(asc(anomalyFields.date));
@@ -63,8 +145,7 @@ export class AnomaliesRepository {
       lat0: r.lat0,
       dLon: r.dLon,
       dLat: r.dLat,
-      // Copy: the driver's buffer may not be 4-byte aligned.
-      values: new Float32Array(Uint8Array.from(r.values).buffer),
+      values: float32(r.values),
     }));
   }
 

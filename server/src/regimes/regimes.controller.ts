@@ -19,6 +19,9 @@ const CompositeQuery = Period.extend({
   regime: z.string().trim().min(1, 'Name the regime, e.g. "moist / onshore"'),
 });
 const SiteQuery = z.object({ siteId: z.coerce.number().int().positive() });
+const ExpectedQuery = z
+  .object({ siteId: z.coerce.number().int().positive(), from: day, to: day })
+  .refine((q) => q.from <= q.to, { message: 'The period must not end before it starts', path: ['to'] });
 
 @ApiTags('regimes')
 @ApiBearerAuth()
@@ -36,6 +39,20 @@ export class RegimesController {
   @Roles('scientist', 'writer')
   composite(@Query(zodQuery(CompositeQuery)) q: z.infer<typeof CompositeQuery>) {
     return this.regimes.composite(q.siteId, q.regime, q.from, q.to, q.districtId);
+  }
+
+  /** The regime expected for a coming period, from the forecast grids (analysis bounds and sectors). */
+  @Get('expected')
+  @Roles('scientist', 'writer')
+  expected(@Query(zodQuery(ExpectedQuery)) q: z.infer<typeof ExpectedQuery>) {
+    return this.regimes.expected(q.siteId, q.from, q.to);
+  }
+
+  /** Which fields are stored: analysis or forecast, anomalies as uploaded or totals − climatology. */
+  @Get('sources')
+  @Roles('scientist', 'writer')
+  sources() {
+    return this.regimes.sources();
   }
 
   @Get('settings')

@@ -1,5 +1,6 @@
 import { BadRequestException, Injectable } from '@nestjs/common';
 import {
+  type ExpectedRegimeResponse,
   type RegimeComposite,
   type RegimeDay,
   RegimeSettings,
@@ -12,7 +13,7 @@ import { isCovered } from '../radar/engine/coverage.js';
 import { distanceAndAzimuth } from '../radar/engine/site-plane.js';
 import { SitesService } from '../radar/sites.service.js';
 import { RegionsRepository } from '../regions/regions.repository.js';
-import { AnomaliesRepository, type StoredField } from './anomalies.repository.js';
+import { AnomaliesRepository, type AnomalyProduct, type StoredField } from './anomalies.repository.js';
 import {
   cellLat,
   cellLon,
@@ -20,6 +21,7 @@ import {
   flowClass,
   type GridGeometry,
   moistureClass,
+  mostFrequentRegime,
   terciles,
   windFrom,
 } from './engine/regime-math.js';
@@ -143,16 +145,38 @@ export class RegimesService {
     return (lat, lon) => locator.locate(lon, lat) !== null;
   }
 
+  /**
+   * The regime expected for a coming period: the forecast days in it, each classified with the moisture
+   * bounds of the whole analysis record (its terciles, or the fixed bounds) and the site's sectors, and
+   * the regime of most of them (a tie goes to the regime of the earliest of the tied days).
+   */
+  async expected(siteId: number, from: string, to: string): Promise<ExpectedRegimeResponse> {
+    const { settings } = await this.settings(siteId);
+    const record = await this.classify(siteId, settings);
+    const { days } = await this.classify(siteId, settings, from, to, undefined, 'forecast', record.bounds);
+    return {
+      siteId,
+      from,
+      to,
+      days: days.map(({ fields: _f, ...d }) => d),
+      regime: mostFrequentRegime(days),
+      moistureBoundsGKg: record.bounds,
+    };
+  }
+
   private async classify(
     siteId: number,
     settings: RegimeSettings,
     from?: string,
     to?: string,
     districtId?: number,
+    product: AnomalyProduct = 'analysis',
+    /** Bounds to use instead of the period's own terciles (forecasts are judged by the record's). */
+    givenBounds?: [number, number] | null,
   ) {
     const inDomain = await this.domain(siteId, districtId);
     const byDate = new Map<string, DayFields>();
-    for (const f of await this.anomalies.fields(LEVEL_HPA, from, to)) {
+    for (const f of await this.anomalies.fields(LEVEL_HPA, from, to, product)) {
       const day = byDate.get(f.date) ?? {};
       day[f.variable] = f;
       byDate.set(f.date, day);
@@ -193,12 +217,23 @@ export class RegimesService {
     }
     const qs = days.map((d) => d.q).filter((q): q is number => q !== null);
     const bounds: [number, number] | null =
-      settings.moistureMethod === 'fixed' ? settings.fixedBoundsGKg : qs.length >= 3 ? terciles(qs) : null;
+      givenBounds !== undefined
+        ? givenBounds
+        : settings.moistureMethod === 'fixed'
+          ? settings.fixedBoundsGKg
+          : qs.length >= 3
+            ? terciles(qs)
+            : null;
     for (const d of days) {
       if (d.q !== null && bounds) d.moisture = moistureClass(d.q, bounds);
       d.regime = d.moisture && d.flow ? `${d.moisture} / ${d.flow}` : null;
     }
     return { days, bounds };
+  }
+
+  /** Where the stored fields came from: analysis or forecast, anomalies as uploaded or totals − climatology. */
+  sources() {
+    return this.anomalies.sources(LEVEL_HPA);
   }
 
   countFields() {

@@ -70,6 +70,23 @@ describe('anomaly intake and regimes', () => {
     expect(agree / ours.length).toBeGreaterThanOrEqual(0.9);
   });
 
+  it('classifies the demo forecast week, kept apart from the season, as the moist onshore spell it was made', async () => {
+    const forecasts = readdirSync(demo).filter((f) => /^forecast-.*\.tif$/.test(f));
+    expect(forecasts).toHaveLength(3);
+    const job = await upload('anomaly-grid', forecasts, { product: 'forecast' });
+    expect(job.state).toBe('done');
+    const season = (await t.http.get(`/api/regimes?siteId=${siteId}`).set(auth).expect(200)).body;
+    expect(season.days).toHaveLength(122);
+    const res = await t.http
+      .get(`/api/regimes/expected?siteId=${siteId}&from=2025-10-01&to=2025-10-07`)
+      .set(auth)
+      .expect(200);
+    expect(res.body.days).toHaveLength(7);
+    expect(res.body.moistureBoundsGKg).toEqual(season.moistureBoundsGKg);
+    // The generator made a moist south-easterly spell (sample-data FORECAST_WEEK).
+    expect(res.body.regime).toBe('moist / onshore');
+  });
+
   it('shows, on the demo season, more storm onsets on moist days than on dry days', async () => {
     await upload('scan-inventory', [scans]);
     await upload('cell-table', [cells]);

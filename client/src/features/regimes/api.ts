@@ -1,4 +1,10 @@
-import type { RegimeComposite, RegimeSettings, RegimesResponse } from '@stormhour/shared';
+import type {
+  AnomalySource,
+  ExpectedRegimeResponse,
+  RegimeComposite,
+  RegimeSettings,
+  RegimesResponse,
+} from '@stormhour/shared';
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../config/paths';
 import { request } from '../../lib/api';
@@ -20,7 +26,16 @@ export const regimeKeys = {
   days: (params: RegimesParams) => ['regimes', 'days', params] as const,
   composite: (params: CompositeParams) => ['regimes', 'composite', params] as const,
   settings: (siteId: number) => ['regimes', 'settings', siteId] as const,
+  expected: (params: ExpectedRegimeParams) => ['regimes', 'expected', params] as const,
+  sources: ['regimes', 'sources'] as const,
 };
+
+/** A coming period (local days, both included) to read the expected regime for. */
+export interface ExpectedRegimeParams {
+  siteId: number;
+  from: string;
+  to: string;
+}
 
 export function fetchRegimes(params: RegimesParams): Promise<RegimesResponse> {
   return request<RegimesResponse>(
@@ -85,4 +100,32 @@ export function useUpdateRegimeSettings(siteId: number) {
     // New settings classify every day again: the calendar, counts and composites all change.
     onSuccess: () => queryClient.invalidateQueries({ queryKey: regimeKeys.all }),
   });
+}
+
+/** The regime expected for a coming period, classified from forecast grids with the record's bounds. */
+export function fetchExpectedRegime(params: ExpectedRegimeParams): Promise<ExpectedRegimeResponse> {
+  return request<ExpectedRegimeResponse>(
+    withQuery(api.regimeExpected, { siteId: params.siteId, from: params.from, to: params.to }),
+  );
+}
+export function getExpectedRegimeQueryOptions(params: ExpectedRegimeParams) {
+  return queryOptions({ queryKey: regimeKeys.expected(params), queryFn: () => fetchExpectedRegime(params) });
+}
+/** For the Outlook: null params (no site or week chosen yet) fetch nothing. */
+export function useExpectedRegime(params: ExpectedRegimeParams | null) {
+  return useQuery({
+    ...getExpectedRegimeQueryOptions(params ?? { siteId: 0, from: '', to: '' }),
+    enabled: params !== null,
+  });
+}
+
+/** Which anomaly fields are stored: analysis or forecast, as uploaded or totals − climatology. */
+export function fetchAnomalySources(): Promise<AnomalySource[]> {
+  return request<AnomalySource[]>(api.regimeSources);
+}
+export function getAnomalySourcesQueryOptions() {
+  return queryOptions({ queryKey: regimeKeys.sources, queryFn: fetchAnomalySources });
+}
+export function useAnomalySources() {
+  return useQuery(getAnomalySourcesQueryOptions());
 }

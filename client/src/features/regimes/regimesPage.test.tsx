@@ -1,4 +1,5 @@
 import {
+  type AnomalySource,
   type RegimeComposite,
   type RegimeDay,
   RegimeSettings,
@@ -109,6 +110,29 @@ function aComposite(regime: string): RegimeComposite {
   };
 }
 
+const sources: AnomalySource[] = [
+  {
+    product: 'analysis',
+    variable: 'q',
+    sourceFile: 'totals-q850.tif',
+    derivation: 'total-minus-climatology',
+    climatologyFile: 'clim-q850.tif',
+    days: 4,
+    first: '2026-07-13',
+    last: '2026-07-16',
+  },
+  {
+    product: 'forecast',
+    variable: 'u',
+    sourceFile: 'forecast-u850.tif',
+    derivation: 'anomaly',
+    climatologyFile: null,
+    days: 7,
+    first: '2026-10-01',
+    last: '2026-10-07',
+  },
+];
+
 function renderRegimes(regimes: RegimesResponse = aResponse(), extra: FakeRoutes = {}) {
   return renderApp('/regimes', {
     as: scientist,
@@ -135,6 +159,7 @@ function renderRegimes(regimes: RegimesResponse = aResponse(), extra: FakeRoutes
         },
       },
       'GET /api/blocks/geojson': { body: outlinesOf(blocks) },
+      'GET /api/regimes/sources': { body: sources },
       ...extra,
     },
   });
@@ -143,6 +168,14 @@ function renderRegimes(regimes: RegimesResponse = aResponse(), extra: FakeRoutes
 const compositeCalls = (calls: FakeRequest[]) => calls.filter((c) => c.path === '/api/regimes/composite');
 
 describe('Regimes', () => {
+  it('lists the stored fields: analysis or forecast, and totals − climatology with its file', async () => {
+    renderRegimes();
+    const table = await screen.findByRole('table', { name: 'Stored anomaly fields' });
+    expect(within(table).getByText('totals − climatology (clim-q850.tif)')).toBeTruthy();
+    expect(within(table).getByText('forecast')).toBeTruthy();
+    expect(within(table).getByText('7 (2026-10-01 – 2026-10-07)')).toBeTruthy();
+  });
+
   it('shows a square per day in the calendar, named by date and regime, and explains one on focus', async () => {
     const { server } = renderRegimes();
     const calendar = await screen.findByRole('group', { name: 'Season calendar' });

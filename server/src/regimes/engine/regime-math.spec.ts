@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { pythonWithScipy, runPython } from '../../testing/scipy.js';
-import { domainMean, flowClass, moistureClass, quantile, terciles, windFrom } from './regime-math.js';
+import {
+  domainMean,
+  flowClass,
+  moistureClass,
+  mostFrequentRegime,
+  quantile,
+  terciles,
+  windFrom,
+} from './regime-math.js';
 
 describe('windFrom', () => {
   it.each([
@@ -82,5 +90,36 @@ describe('domainMean', () => {
     expect(partial.mean).toBe(8);
     expect(partial.share).toBeCloseTo(1 / 1.5, 12);
     expect(domainMean([2, 8], g, Uint8Array.from([0, 1])).mean).toBe(8);
+  });
+});
+
+describe('domainMean against the sphere', () => {
+  it('averages sin(latitude) over a latitude band to the analytic spherical mean within 0.5 %', () => {
+    // On a sphere the area element is cos φ dφ dλ, so the mean of sin φ over φ1…φ2 is
+    // ∫ sin φ cos φ dφ / ∫ cos φ dφ = (sin φ1 + sin φ2) / 2 (analytic).
+    const [south, north] = [10, 40];
+    const step = 0.25;
+    const g = { nx: 8, ny: (north - south) / step, lon0: 80, lat0: north - step / 2, dLon: step, dLat: step };
+    const values = new Float64Array(g.nx * g.ny);
+    for (let j = 0; j < g.ny; j++)
+      for (let i = 0; i < g.nx; i++) values[j * g.nx + i] = Math.sin(((g.lat0 - j * step) * Math.PI) / 180);
+    const exact = (Math.sin((south * Math.PI) / 180) + Math.sin((north * Math.PI) / 180)) / 2;
+    const { mean } = domainMean(values, g, new Uint8Array(g.nx * g.ny).fill(1));
+    expect(Math.abs((mean as number) - exact) / exact).toBeLessThan(0.005);
+    // Without the weighting the plain mean is off by more than that: the check can fail.
+    const plain = values.reduce((a, b) => a + b, 0) / values.length;
+    expect(Math.abs(plain - exact) / exact).toBeGreaterThan(0.005);
+  });
+});
+
+describe('mostFrequentRegime', () => {
+  it('takes the regime of most days, a tie going to the earliest day’s, and ignores unknown days', () => {
+    const r = (...names: (string | null)[]) => names.map((regime) => ({ regime }));
+    expect(mostFrequentRegime(r('moist / onshore', 'dry / weak', 'dry / weak'))).toBe('dry / weak');
+    expect(mostFrequentRegime(r('dry / weak', 'moist / onshore', 'moist / onshore', 'dry / weak'))).toBe(
+      'dry / weak',
+    );
+    expect(mostFrequentRegime(r(null, 'moist / onshore', null))).toBe('moist / onshore');
+    expect(mostFrequentRegime(r(null))).toBeNull();
   });
 });

@@ -92,3 +92,16 @@ export function domainMean(
   }
   return { mean: weight > 0 ? sum / weight : null, share: possible > 0 ? weight / possible : 0 };
 }
+
+/**
+ * The regime of most days, in date order; a tie goes to the tied regime seen first (the earliest day's).
+ * Days without a regime are not counted; null when none has one.
+ */
+export function mostFrequentRegime(days: { regime: string | null }[]): string | null {
+  const counts = new Map<string, number>();
+  for (const d of days) if (d.regime) counts.set(d.regime, (counts.get(d.regime) ?? 0) + 1);
+  let best: string | null = null;
+  // Map keeps first-seen order, so ">" leaves a tie with the earlier regime.
+  for (const [regime, n] of counts) if (best === null || n > (counts.get(best) as number)) best = regime;
+  return best;
+}

@@ -1,4 +1,11 @@
-import type { AnomalyVariable, CellTableMapping, IntakeKind, IntakeRequest } from '@stormhour/shared';
+import type {
+  AnomalyProduct,
+  AnomalyVariable,
+  CellTableMapping,
+  FieldKind,
+  IntakeKind,
+  IntakeRequest,
+} from '@stormhour/shared';
 
 export const KIND_LABELS: Record<IntakeKind, string> = {
   volume: 'Volume scans (GeoTIFF)',
@@ -33,6 +40,17 @@ export const ANOMALY_UNIT_LABELS: Record<AnomalyUnit, string> = {
   kt: 'knots',
 };
 
+export const PRODUCT_LABELS: Record<AnomalyProduct, string> = {
+  analysis: 'Analysis of past days (feeds the regimes)',
+  forecast: 'Forecast of coming days (for the expected regime)',
+};
+
+export const FIELD_KIND_LABELS: Record<FieldKind, string> = {
+  anomaly: 'Anomalies',
+  total: 'Totals (the stored climatology is subtracted)',
+  climatology: 'Climatology (one band per month or day of the year)',
+};
+
 /** The units that fit a variable; all of them while the variable is left to the file. */
 export function unitsFor(variable: AnomalyVariable | null): AnomalyUnit[] {
   if (variable === 'q') return ['g/kg', 'kg/kg'];
@@ -62,6 +80,8 @@ export interface IntakeDraft {
   /** Anomaly grids only; null leaves it to the file's metadata. */
   variable?: AnomalyVariable | null;
   units?: AnomalyUnit | null;
+  product?: AnomalyProduct;
+  fieldKind?: FieldKind;
 }
 
 /** The tokens a time pattern may use (IntakeRequest.timePattern). */
@@ -79,7 +99,7 @@ export function uploadBlockers(draft: IntakeDraft, mappingProblems: readonly str
     );
   }
   if (
-    isGeoTiffKind(draft.kind) &&
+    (isGeoTiffKind(draft.kind) || draft.kind === 'anomaly-grid') &&
     draft.timePattern.trim() !== '' &&
     !PATTERN_TOKENS.test(draft.timePattern)
   ) {
@@ -97,12 +117,14 @@ export function buildIntakeForm(draft: IntakeDraft): FormData {
   form.append('kind', draft.kind);
   form.append('onError', draft.onError);
   if (draft.kind === 'cell-table' && draft.mapping) form.append('mapping', JSON.stringify(draft.mapping));
-  if (isGeoTiffKind(draft.kind) && draft.timePattern.trim() !== '') {
+  if ((isGeoTiffKind(draft.kind) || draft.kind === 'anomaly-grid') && draft.timePattern.trim() !== '') {
     form.append('timePattern', draft.timePattern.trim());
   }
   if (draft.kind === 'anomaly-grid') {
     if (draft.variable) form.append('variable', draft.variable);
     if (draft.units) form.append('units', draft.units);
+    form.append('product', draft.product ?? 'analysis');
+    form.append('fieldKind', draft.fieldKind ?? 'anomaly');
   }
   return form;
 }

@@ -193,5 +193,37 @@ describe('Intake › Uploads & jobs', () => {
     expect(form.get('variable')).toBe('u');
     expect(form.get('units')).toBe('kt');
     expect(form.get('timePattern')).toBeNull();
+    // Unless chosen otherwise, an analysis of anomalies.
+    expect(form.get('product')).toBe('analysis');
+    expect(form.get('fieldKind')).toBe('anomaly');
   });
+
+  it('lets an anomaly upload be a forecast, or totals, with a date pattern for undated bands', async () => {
+    const { server } = renderUploads({
+      'POST /api/intake': { status: 202, body: aJob({ kind: 'anomaly-grid' }) },
+    });
+    await userEvent.selectOptions(
+      await screen.findByLabelText('Kind of files'),
+      'Anomaly grids (GeoTIFF one band per day, or long-form CSV)',
+    );
+    await userEvent.selectOptions(
+      screen.getByLabelText('Product'),
+      'Forecast of coming days (for the expected regime)',
+    );
+    await userEvent.selectOptions(
+      screen.getByLabelText('The values are'),
+      'Totals (the stored climatology is subtracted)',
+    );
+    await userEvent.type(screen.getByLabelText('File-name date pattern (optional)'), 'q850_YYYYMMDD.tif');
+    await userEvent.upload(
+      screen.getByLabelText('Choose files'),
+      new File(['II*'], 'q850_20261001.tif', { type: 'image/tiff' }),
+    );
+    await userEvent.click(screen.getByRole('button', { name: 'Upload' }));
+    await waitFor(() => expect(server.calls.some((c) => c.path === '/api/intake')).toBe(true));
+    const form = server.calls.find((c) => c.path === '/api/intake')?.body as FormData;
+    expect(form.get('product')).toBe('forecast');
+    expect(form.get('fieldKind')).toBe('total');
+    expect(form.get('timePattern')).toBe('q850_YYYYMMDD.tif');
+  }, 15_000);
 });

@@ -13,6 +13,7 @@ import { RegimeCounts } from './RegimeCounts';
 import { RegimeSettingsModal } from './RegimeSettingsModal';
 import { RegimeThresholds } from './RegimeThresholds';
 import { SeasonCalendar } from './SeasonCalendar';
+import { StoredFields } from './StoredFields';
 
 function PeriodControls({
   sites,
@@ -152,6 +153,12 @@ function RegimesBody({
           Composite of a regime
         </h2>
         <CompositeMap params={params} styles={withDays} regime={regime} onRegime={onRegime} />
+      </section>
+      <section aria-labelledby="regimes-sources-title">
+        <h2 id="regimes-sources-title" className="section-title">
+          Stored fields
+        </h2>
+        <StoredFields />
       </section>
     </>
   );

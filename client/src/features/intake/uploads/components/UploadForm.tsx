@@ -9,8 +9,12 @@ import {
   TextInput,
 } from '@carbon/react';
 import {
+  ANOMALY_PRODUCTS,
   ANOMALY_VARIABLES,
+  type AnomalyProduct,
   type AnomalyVariable,
+  FIELD_KINDS,
+  type FieldKind,
   INTAKE_KINDS,
   type IntakeKind,
   type SiteView,
@@ -28,11 +32,13 @@ import {
   ANOMALY_VARIABLE_LABELS,
   type AnomalyUnit,
   buildIntakeForm,
+  FIELD_KIND_LABELS,
   fitsKind,
   type IntakeDraft,
   isGeoTiffKind,
   KIND_LABELS,
   type OnError,
+  PRODUCT_LABELS,
   unitsFor,
   uploadBlockers,
 } from '../intakeRequest';
@@ -118,6 +124,44 @@ function AnomalyFields(props: {
   );
 }
 
+/** For anomaly grids: analysis or forecast, and whether the values are anomalies, totals or a climatology. */
+function AnomalyProductFields(props: {
+  product: AnomalyProduct;
+  fieldKind: FieldKind;
+  disabled: boolean;
+  onProduct: (product: AnomalyProduct) => void;
+  onFieldKind: (fieldKind: FieldKind) => void;
+}) {
+  return (
+    <div className="upload-form__row">
+      <Select
+        id="upload-product"
+        labelText="Product"
+        helperText="Forecasts are kept apart: they never replace or mix with analyses of the same day."
+        value={props.product}
+        disabled={props.disabled}
+        onChange={(e) => props.onProduct(e.target.value as AnomalyProduct)}
+      >
+        {ANOMALY_PRODUCTS.map((p) => (
+          <SelectItem key={p} value={p} text={PRODUCT_LABELS[p]} />
+        ))}
+      </Select>
+      <Select
+        id="upload-field-kind"
+        labelText="The values are"
+        helperText="For totals, upload the climatology of the same variable, level and grid first."
+        value={props.fieldKind}
+        disabled={props.disabled}
+        onChange={(e) => props.onFieldKind(e.target.value as FieldKind)}
+      >
+        {FIELD_KINDS.map((k) => (
+          <SelectItem key={k} value={k} text={FIELD_KIND_LABELS[k]} />
+        ))}
+      </Select>
+    </div>
+  );
+}
+
 /** Site, kind, files and options; for cell tables the column mapping; then upload and follow the job. */
 export function UploadForm() {
   const sites = useSites();
@@ -129,6 +173,8 @@ export function UploadForm() {
   const [timePattern, setTimePattern] = useState('');
   const [variable, setVariable] = useState<AnomalyVariable | null>(null);
   const [units, setUnits] = useState<AnomalyUnit | null>(null);
+  const [product, setProduct] = useState<AnomalyProduct>('analysis');
+  const [fieldKind, setFieldKind] = useState<FieldKind>('anomaly');
   const [fraction, setFraction] = useState(0);
   const upload = useStartIntake(setFraction);
 
@@ -145,6 +191,8 @@ export function UploadForm() {
     timePattern,
     variable,
     units,
+    product,
+    fieldKind,
     mapping: mapping.draft && mapping.problems.length === 0 ? toMapping(mapping.draft) : null,
   };
   const blockers = uploadBlockers(draft, mapping.problems);
@@ -208,6 +256,25 @@ export function UploadForm() {
             if (units && !unitsFor(next).includes(units)) setUnits(null);
           }}
           onUnits={setUnits}
+        />
+      ) : null}
+      {kind === 'anomaly-grid' ? (
+        <AnomalyProductFields
+          product={product}
+          fieldKind={fieldKind}
+          disabled={busy}
+          onProduct={setProduct}
+          onFieldKind={setFieldKind}
+        />
+      ) : null}
+      {kind === 'anomaly-grid' ? (
+        <TextInput
+          id="upload-date-pattern"
+          labelText="File-name date pattern (optional)"
+          helperText="Only for grids whose bands carry no dates: write the name with YYYY MM DD where the first band's date is, e.g. q850_YYYYMMDD.tif; each further band is the next day."
+          value={timePattern}
+          disabled={busy}
+          onChange={(e) => setTimePattern(e.target.value)}
         />
       ) : null}
       {csvFile && mapping.preview && mapping.draft ? (
