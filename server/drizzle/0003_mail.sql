@@ -18,6 +18,7 @@ CREATE TABLE "mail_outbox" (
 	"last_error" text,
 	"next_attempt_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"last_attempt_at" timestamp with time zone,
+	"via" text,
 	"sent_at" timestamp with time zone,
 	"message_id" text NOT NULL,
 	"created_by" integer,

@@ -347,6 +347,8 @@ export const mailOutbox = pgTable(
     lastError: text('last_error'),
     nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }).notNull().defaultNow(),
     lastAttemptAt: timestamp('last_attempt_at', { withTimezone: true }),
+    /** Where the last try went: the local fake or a real server; decides how a restart settles the row. */
+    via: text('via', { enum: ['fake', 'smtp'] }),
     sentAt: timestamp('sent_at', { withTimezone: true }),
     /** Fixed when the row is made (from key and recipient), so every try of it carries the same one. */
     messageId: text('message_id').notNull(),
