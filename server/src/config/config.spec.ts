@@ -59,6 +59,8 @@ describe('loadConfig', () => {
         MAIL_FROM: 'a@x.example, b@x.example',
         MAIL_FAKE_PORT: '70000',
       }),
-    ).toThrow(/SMTP_URL: SMTP_URL must look like[\s\S]*MAIL_FAKE_PORT[\s\S]*MAIL_FROM: MAIL_FROM must be one address/);
+    ).toThrow(
+      /SMTP_URL: SMTP_URL must look like[\s\S]*MAIL_FAKE_PORT[\s\S]*MAIL_FROM: MAIL_FROM must be one address/,
+    );
   });
 });

@@ -384,5 +384,8 @@ export const mailReceived = pgTable(
     /** The RFC 5322 source as received. */
     raw: bytea('raw').notNull(),
   },
-  (t) => [index('mail_received_at_idx').on(t.receivedAt), index('mail_received_message_id_idx').on(t.messageId)],
+  (t) => [
+    index('mail_received_at_idx').on(t.receivedAt),
+    index('mail_received_message_id_idx').on(t.messageId),
+  ],
 );

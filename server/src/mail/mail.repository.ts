@@ -139,7 +139,10 @@ export class MailRepository {
   // ── The local fake server's mailbox ──
 
   async insertReceived(row: NewReceivedRow): Promise<number> {
-    const [created] = await this.handle.db.insert(mailReceived).values(row).returning({ id: mailReceived.id });
+    const [created] = await this.handle.db
+      .insert(mailReceived)
+      .values(row)
+      .returning({ id: mailReceived.id });
     return created.id;
   }
 
@@ -163,8 +166,9 @@ export class MailRepository {
       this.handle.db
         .select({
           ...summaryColumns,
-          sameMessageIdCount: sql<number>`(select count(*)::int from ${mailReceived} m2
-            where m2.message_id = ${mailReceived.messageId})`,
+          // Written out in full: inside the sub-select a column reference would bind to m2, not the outer row.
+          sameMessageIdCount: sql<number>`(select count(*)::int from mail_received m2
+            where m2.message_id = mail_received.message_id)`,
         })
         .from(mailReceived)
         .where(where)

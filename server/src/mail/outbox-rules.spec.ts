@@ -106,11 +106,20 @@ describe('idempotency', () => {
     const batch = [mail('a@unit.example'), mail('B@unit.example'), mail('c@unit.example')];
     const fresh = newRecipientsOnly(batch, ['b@unit.example', 'z@unit.example']);
     expect(fresh.map((m) => m.to)).toEqual(['a@unit.example', 'c@unit.example']);
-    expect(newRecipientsOnly(batch, batch.map((m) => m.to))).toEqual([]);
+    expect(
+      newRecipientsOnly(
+        batch,
+        batch.map((m) => m.to),
+      ),
+    ).toEqual([]);
   });
 
   it('accepts a well-formed batch', () => {
-    const pdf = { filename: 'bulletin.pdf', contentType: 'application/pdf', content: Buffer.from('%PDF-1.7') };
+    const pdf = {
+      filename: 'bulletin.pdf',
+      contentType: 'application/pdf',
+      content: Buffer.from('%PDF-1.7'),
+    };
     expect(checkOutgoing('bulletin:12:v3', [mail('a@unit.example', { attachments: [pdf] })])).toEqual([]);
   });
 

@@ -35,7 +35,8 @@ export interface OutgoingMail {
  * retries sooner).
  */
 export function retryDelayMs(attempt: number): number {
-  if (!Number.isInteger(attempt) || attempt < 1) throw new RangeError(`attempt must be 1 or more, not ${attempt}`);
+  if (!Number.isInteger(attempt) || attempt < 1)
+    throw new RangeError(`attempt must be 1 or more, not ${attempt}`);
   return Math.min(RETRY_CAP_MS, RETRY_BASE_MS * 2 ** (attempt - 1));
 }
 
@@ -84,7 +85,9 @@ export function normaliseRecipient(address: string): string {
  * see it is the same message, not a new one.
  */
 export function outboxMessageId(key: string, recipient: string, fromAddress: string): string {
-  const digest = createHash('sha256').update(`${key}\n${normaliseRecipient(recipient)}`).digest('hex');
+  const digest = createHash('sha256')
+    .update(`${key}\n${normaliseRecipient(recipient)}`)
+    .digest('hex');
   const domain = fromAddress.split('@').pop() || 'stormhour.invalid';
   return `<${digest.slice(0, 32)}.outbox@${domain}>`;
 }
@@ -107,7 +110,8 @@ export function checkOutgoing(key: string, messages: OutgoingMail[]): ErrorDetai
   messages.forEach((m, i) => {
     const at = `messages[${i}]`;
     const to = normaliseRecipient(m.to ?? '');
-    if (!ADDRESS.test(to)) problems.push({ where: `${at}.to`, problem: `"${m.to}" is not an e-mail address` });
+    if (!ADDRESS.test(to))
+      problems.push({ where: `${at}.to`, problem: `"${m.to}" is not an e-mail address` });
     else if (firstIndexOf.has(to))
       problems.push({
         where: `${at}.to`,
