@@ -36,16 +36,24 @@ describe('admin reads the mail log', () => {
     // The HTML body renders inside the sandboxed frame, with scripts off.
     const frame = page.locator('iframe[title="HTML body"]');
     expect(await frame.getAttribute('sandbox')).toBe('');
-    await page.frameLocator('iframe[title="HTML body"]').getByText('If you can read it, sending works.').waitFor();
+    await page
+      .frameLocator('iframe[title="HTML body"]')
+      .getByText('If you can read it, sending works.')
+      .waitFor();
     await page.getByRole('tab', { name: 'Plain text' }).click();
-    await page.locator('pre.mail-text').getByText(/This is a test message from Stormhour/).waitFor();
+    await page
+      .locator('pre.mail-text')
+      .getByText(/This is a test message from Stormhour/)
+      .waitFor();
 
     const download = page.waitForEvent('download');
     await page.getByRole('button', { name: 'Download mail-settings.txt' }).click();
     const file = await download;
     expect(file.suggestedFilename()).toBe('mail-settings.txt');
     expect(readFileSync(await file.path(), 'utf8')).toMatch(/^mode: fake\nserver: 127\.0\.0\.1:\d+\n/);
-    await page.screenshot({ path: fileURLToPath(new URL('./screenshots/mail-message.png', import.meta.url)) });
+    await page.screenshot({
+      path: fileURLToPath(new URL('./screenshots/mail-message.png', import.meta.url)),
+    });
     expect(outside).toEqual([]);
   });
 });
