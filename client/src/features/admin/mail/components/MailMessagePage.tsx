@@ -3,13 +3,14 @@ import {
   InlineLoading,
   InlineNotification,
   Link,
-  StructuredListBody,
-  StructuredListCell,
-  StructuredListHead,
-  StructuredListRow,
-  StructuredListWrapper,
   Tab,
   TabList,
+  Table,
+  TableBody,
+  TableCell,
+  TableHead,
+  TableHeader,
+  TableRow,
   TabPanel,
   TabPanels,
   Tabs,
@@ -30,26 +31,26 @@ function Attachments({ message }: { message: MailMessageView }) {
   if (message.attachments.length === 0) return <p>No attachments.</p>;
   return (
     <>
-      <StructuredListWrapper aria-label="Attachments" isCondensed>
-        <StructuredListHead>
-          <StructuredListRow head>
-            <StructuredListCell head>File</StructuredListCell>
-            <StructuredListCell head>Type</StructuredListCell>
-            <StructuredListCell head>Size</StructuredListCell>
-            <StructuredListCell head>
+      <Table aria-label="Attachments" size="sm">
+        <TableHead>
+          <TableRow>
+            <TableHeader>File</TableHeader>
+            <TableHeader>Type</TableHeader>
+            <TableHeader>Size</TableHeader>
+            <TableHeader>
               <span className="cds--visually-hidden">Download</span>
-            </StructuredListCell>
-          </StructuredListRow>
-        </StructuredListHead>
-        <StructuredListBody>
+            </TableHeader>
+          </TableRow>
+        </TableHead>
+        <TableBody>
           {message.attachments.map((a) => {
             const name = a.filename ?? `attachment-${a.index + 1}`;
             return (
-              <StructuredListRow key={a.index}>
-                <StructuredListCell>{name}</StructuredListCell>
-                <StructuredListCell className="mono">{a.contentType}</StructuredListCell>
-                <StructuredListCell>{formatBytes(a.size)}</StructuredListCell>
-                <StructuredListCell>
+              <TableRow key={a.index}>
+                <TableCell>{name}</TableCell>
+                <TableCell className="mono">{a.contentType}</TableCell>
+                <TableCell>{formatBytes(a.size)}</TableCell>
+                <TableCell className="row-actions">
                   <Button
                     kind="ghost"
                     size="sm"
@@ -63,12 +64,12 @@ function Attachments({ message }: { message: MailMessageView }) {
                   >
                     Download
                   </Button>
-                </StructuredListCell>
-              </StructuredListRow>
+                </TableCell>
+              </TableRow>
             );
           })}
-        </StructuredListBody>
-      </StructuredListWrapper>
+        </TableBody>
+      </Table>
       {error ? (
         <InlineNotification
           kind="error"
