@@ -73,8 +73,13 @@ export class FakeSmtpServer {
   }
 
   private async store(raw: Buffer, envelopeFrom: string, envelopeTo: string[]): Promise<void> {
-    // Subject and Message-ID are read once here for the list; a message we cannot parse is kept anyway.
-    const headers = await simpleParser(raw, { skipHtmlToText: true, skipTextToHtml: true }).catch(() => null);
+    // Subject and Message-ID are read once here, for the list, from the header block alone (the bodies
+    // and attachments are parsed only when someone opens the message). A message we cannot parse is kept.
+    const headerEnd = raw.indexOf('\r\n\r\n');
+    const headerBlock = headerEnd >= 0 ? raw.subarray(0, headerEnd + 4) : raw;
+    const headers = await simpleParser(headerBlock, { skipHtmlToText: true, skipTextToHtml: true }).catch(
+      () => null,
+    );
     await this.repo.insertReceived({
       envelopeFrom,
       envelopeTo,

@@ -31,7 +31,13 @@ export class MailTransport implements OnModuleInit {
       this.logger.log(`Sending mail through ${this.settings().server}`);
       return;
     }
-    const port = await this.fake.start(this.config.mailFakePort);
+    const port = await this.fake.start(this.config.mailFakePort).catch((err: NodeJS.ErrnoException) => {
+      throw new Error(
+        err.code === 'EADDRINUSE'
+          ? `MAIL_FAKE_PORT: port ${this.config.mailFakePort} on 127.0.0.1 is already in use; choose another or leave it unset for a free one.`
+          : `The local mail capture server could not start: ${err.message}`,
+      );
+    });
     // The fake offers no STARTTLS (smtp-server's built-in certificate has expired) and is on loopback.
     this.transporter = nodemailer.createTransport({
       host: '127.0.0.1',

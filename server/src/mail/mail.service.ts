@@ -88,12 +88,22 @@ export class MailService {
     const work = async (tx: Executor): Promise<EnqueueResult> => {
       const existing = await this.repo.recipientsOf(key, tx);
       const fresh = newRecipientsOnly(messages, existing);
+      // A bulletin's PDF goes to every officer: hash each distinct buffer once and store it once.
+      const hashes = new Map<Buffer, string>();
+      const stored = new Set<string>();
       const rows: NewOutboxRow[] = [];
       for (const m of fresh) {
         const attachments: OutboxAttachmentRef[] = [];
         for (const a of m.attachments ?? []) {
-          const sha256 = createHash('sha256').update(a.content).digest('hex');
-          await this.repo.storeBlob(sha256, a.content, tx);
+          let sha256 = hashes.get(a.content);
+          if (!sha256) {
+            sha256 = createHash('sha256').update(a.content).digest('hex');
+            hashes.set(a.content, sha256);
+          }
+          if (!stored.has(sha256)) {
+            await this.repo.storeBlob(sha256, a.content, tx);
+            stored.add(sha256);
+          }
           attachments.push({
             filename: a.filename.trim(),
             contentType: a.contentType,

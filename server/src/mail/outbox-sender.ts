@@ -72,11 +72,13 @@ export class OutboxSender implements OnApplicationBootstrap, BeforeApplicationSh
   private async run(fixedNow?: Date): Promise<SendRun> {
     const clock = () => fixedNow ?? new Date();
     const tally: SendRun = { sent: 0, retrying: 0, failed: 0 };
+    // Attachments are shared by a send's recipients: read each from the database once per run.
+    const blobCache = new Map<string, Buffer>();
     try {
       while (!this.stopped) {
         const row = await this.repo.claimDue(clock(), this.transport.mode);
         if (!row) break;
-        tally[await this.sendOne(row, clock)]++;
+        tally[await this.sendOne(row, clock, blobCache)]++;
       }
     } finally {
       if (!this.stopped) await this.scheduleNext();
@@ -84,10 +86,19 @@ export class OutboxSender implements OnApplicationBootstrap, BeforeApplicationSh
     return tally;
   }
 
-  private async sendOne(row: OutboxRow, clock: () => Date): Promise<keyof SendRun> {
+  private async sendOne(
+    row: OutboxRow,
+    clock: () => Date,
+    blobs: Map<string, Buffer>,
+  ): Promise<keyof SendRun> {
     const target = `outbox:${row.id}`;
     try {
-      const blobs = await this.repo.blobs(row.attachments.map((a) => a.sha256));
+      const missing = row.attachments.map((a) => a.sha256).filter((h) => !blobs.has(h));
+      if (missing.length > 0) {
+        // Bounded: a run's cache never holds more than a few sends' attachments.
+        if (blobs.size > 32) blobs.clear();
+        for (const [hash, content] of await this.repo.blobs(missing)) blobs.set(hash, content);
+      }
       const info = await this.transport.send({
         to: row.recipient,
         subject: row.subject,
