@@ -3,6 +3,7 @@ export * from './auth.js';
 export * from './bulletins.js';
 export * from './errors.js';
 export * from './intake.js';
+export * from './mail.js';
 export * from './radar.js';
 export * from './regimes.js';
 export * from './regions.js';

@@ -15,6 +15,8 @@ const AdminLayout = lazy(() => import('./routes/AdminLayout'));
 const BlocksPage = lazy(() => import('../features/admin/blocks/components/BlocksPage'));
 const PeoplePage = lazy(() => import('../features/admin/people/components/PeoplePage'));
 const AuditPage = lazy(() => import('../features/admin/audit/components/AuditPage'));
+const MailLogPage = lazy(() => import('../features/admin/mail/components/MailLogPage'));
+const MailMessagePage = lazy(() => import('../features/admin/mail/components/MailMessagePage'));
 const IntakeLayout = lazy(() => import('./routes/IntakeLayout'));
 const UploadsPage = lazy(() => import('../features/intake/uploads/components/UploadsPage'));
 const JobDetailPage = lazy(() => import('../features/intake/jobs/components/JobDetailPage'));
@@ -91,6 +93,8 @@ export const routes: RouteObject[] = [
                   { path: paths.admin.blocks, element: <BlocksPage /> },
                   { path: paths.admin.people, element: <PeoplePage /> },
                   { path: paths.admin.audit, element: <AuditPage /> },
+                  { path: paths.admin.mail, element: <MailLogPage /> },
+                  { path: 'mail/messages/:messageId', element: <MailMessagePage /> },
                   { path: '*', element: <NotFoundPage /> },
                 ],
               },

@@ -19,6 +19,8 @@ export const paths = {
     blocks: '/admin/blocks',
     people: '/admin/people',
     audit: '/admin/audit',
+    mail: '/admin/mail',
+    mailMessage: (id: number | string) => `/admin/mail/messages/${id}`,
   },
   intake: {
     uploads: '/intake',
@@ -73,4 +75,12 @@ export const api = {
   regimeSettings: '/api/regimes/settings',
   regimeExpected: '/api/regimes/expected',
   regimeSources: '/api/regimes/sources',
+  mailSettings: '/api/mail/settings',
+  mailOutbox: '/api/mail/outbox',
+  mailOutboxRetry: (id: number) => `/api/mail/outbox/${id}/retry`,
+  mailTest: '/api/mail/test',
+  mailMessages: '/api/mail/messages',
+  mailMessage: (id: number) => `/api/mail/messages/${id}`,
+  mailMessageSource: (id: number) => `/api/mail/messages/${id}/source`,
+  mailAttachment: (id: number, index: number) => `/api/mail/messages/${id}/attachments/${index}`,
 } as const;

@@ -98,6 +98,31 @@ export async function request<T>(path: string, options: RequestOptions = {}): Pr
   return (text ? JSON.parse(text) : undefined) as T;
 }
 
+/** Fetches a file the API serves (downloads need the session header, so a plain link will not do). */
+export async function requestBlob(path: string): Promise<Blob> {
+  let res = await send(path, {});
+  if (res.status === 401) {
+    const renewed = await refreshSession();
+    if (renewed) res = await send(path, {});
+    if (res.status === 401) handlers.onLost();
+  }
+  if (!res.ok) throw apiErrorFrom(res.status, await res.text());
+  return res.blob();
+}
+
+/** Hands a fetched file to the browser to save under the given name. */
+export function saveBlob(blob: Blob, filename: string): void {
+  const url = URL.createObjectURL(blob);
+  const link = document.createElement('a');
+  link.href = url;
+  link.download = filename;
+  document.body.append(link);
+  link.click();
+  link.remove();
+  // Give the download a moment to start before the URL goes.
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+}
+
 interface XhrResult {
   status: number;
   text: string;

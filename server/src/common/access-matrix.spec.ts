@@ -43,6 +43,14 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'GET /api/regimes/expected': ['scientist', 'writer'],
   'GET /api/regimes/sources': ['scientist', 'writer'],
   'PUT /api/regimes/settings': ['scientist'],
+  'GET /api/mail/settings': ['admin'],
+  'GET /api/mail/outbox': ['admin'],
+  'POST /api/mail/outbox/:id/retry': ['admin'],
+  'POST /api/mail/test': ['admin'],
+  'GET /api/mail/messages': ['admin'],
+  'GET /api/mail/messages/:id': ['admin'],
+  'GET /api/mail/messages/:id/source': ['admin'],
+  'GET /api/mail/messages/:id/attachments/:index': ['admin'],
 };
 
 interface ExpressLayer {

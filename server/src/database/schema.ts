@@ -349,3 +349,78 @@ export const regimeSettings = pgTable(
   },
   (t) => [uniqueIndex('regime_settings_version_idx').on(t.siteId, t.version)],
 );
+
+// ── Mail ──────────────────────────────────────────────────────────────────────────────────────────
+
+/** What an outbox row keeps of each attachment; the bytes are in mail_blobs, stored once per content. */
+export interface OutboxAttachmentRef {
+  filename: string;
+  contentType: string;
+  sha256: string;
+  size: number;
+}
+
+/**
+ * Messages to send, one row per (dedupe key, recipient): the unique index is what makes sure nobody
+ * is sent the same bulletin version twice. The sender loop moves rows queued → sending → sent | failed.
+ */
+export const mailOutbox = pgTable(
+  'mail_outbox',
+  {
+    id: serial('id').primaryKey(),
+    /** What is being sent, e.g. bulletin:12:v3; the same key and recipient never get a second row. */
+    dedupeKey: text('dedupe_key').notNull(),
+    recipient: text('recipient').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    html: text('html'),
+    attachments: jsonb('attachments').$type<OutboxAttachmentRef[]>().notNull().default([]),
+    state: text('state', { enum: ['queued', 'sending', 'sent', 'failed'] })
+      .notNull()
+      .default('queued'),
+    attempts: integer('attempts').notNull().default(0),
+    lastError: text('last_error'),
+    nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }).notNull().defaultNow(),
+    lastAttemptAt: timestamp('last_attempt_at', { withTimezone: true }),
+    /** Where the last try went: the local fake or a real server; decides how a restart settles the row. */
+    via: text('via', { enum: ['fake', 'smtp'] }),
+    sentAt: timestamp('sent_at', { withTimezone: true }),
+    /** Fixed when the row is made (from key and recipient), so every try of it carries the same one. */
+    messageId: text('message_id').notNull(),
+    createdBy: integer('created_by').references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('mail_outbox_key_recipient_idx').on(t.dedupeKey, t.recipient),
+    index('mail_outbox_due_idx').on(t.state, t.nextAttemptAt),
+  ],
+);
+
+/** Attachment bytes by SHA-256: a bulletin's PDF sent to twenty officers is stored once. */
+export const mailBlobs = pgTable('mail_blobs', {
+  sha256: text('sha256').primaryKey(),
+  content: bytea('content').notNull(),
+  size: integer('size').notNull(),
+  createdAt: createdAt(),
+});
+
+/** The local fake SMTP server's mailbox: every message it accepted, exactly as received. */
+export const mailReceived = pgTable(
+  'mail_received',
+  {
+    id: serial('id').primaryKey(),
+    receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
+    envelopeFrom: text('envelope_from').notNull(),
+    envelopeTo: jsonb('envelope_to').$type<string[]>().notNull(),
+    /** Read from the headers at capture, for listing and for spotting a duplicate delivery. */
+    messageId: text('message_id'),
+    subject: text('subject'),
+    sizeBytes: integer('size_bytes').notNull(),
+    /** The RFC 5322 source as received. */
+    raw: bytea('raw').notNull(),
+  },
+  (t) => [
+    index('mail_received_at_idx').on(t.receivedAt),
+    index('mail_received_message_id_idx').on(t.messageId),
+  ],
+);

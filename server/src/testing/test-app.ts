@@ -38,6 +38,9 @@ export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
     clientDist: null,
     demoDataDir: '',
     filesDir: join(tmpdir(), `stormhour-test-files-${process.pid}`),
+    smtpUrl: null,
+    mailFakePort: 0,
+    mailFrom: 'Stormhour test <bulletins@stormhour.invalid>',
     ...overrides,
   };
 }

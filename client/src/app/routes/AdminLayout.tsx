@@ -5,6 +5,7 @@ const ADMIN_PAGES = [
   { name: 'Districts & blocks', path: paths.admin.blocks },
   { name: 'People', path: paths.admin.people },
   { name: 'Audit trail', path: paths.admin.audit },
+  { name: 'Mail log', path: paths.admin.mail },
 ] as const;
 
 export default function AdminLayout() {
