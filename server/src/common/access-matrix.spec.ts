@@ -41,6 +41,12 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'GET /api/regimes/composite': ['scientist', 'writer'],
   'GET /api/regimes/settings': ['scientist', 'writer'],
   'PUT /api/regimes/settings': ['scientist'],
+  'GET /api/districts/:id/crop-calendar': ['scientist', 'writer', 'admin'],
+  'PUT /api/districts/:id/crop-calendar': ['scientist', 'admin'],
+  'POST /api/crop-calendars/import': ['scientist', 'admin'],
+  'GET /api/advice-rules': ['scientist', 'writer'],
+  'POST /api/advice-rules': ['scientist'],
+  'PUT /api/advice-rules/:id': ['scientist'],
 };
 
 interface ExpressLayer {

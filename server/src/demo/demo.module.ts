@@ -6,5 +6,8 @@ import { RegionsModule } from '../regions/regions.module.js';
 import { UsersModule } from '../users/users.module.js';
 import { DemoSeeder } from './demo.seeder.js';
 
-@Module({ imports: [UsersModule, RegionsModule, RadarModule, IntakeModule, AdviceModule], providers: [DemoSeeder] })
+@Module({
+  imports: [UsersModule, RegionsModule, RadarModule, IntakeModule, AdviceModule],
+  providers: [DemoSeeder],
+})
 export class DemoModule {}
