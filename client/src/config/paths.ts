@@ -19,6 +19,11 @@ export const paths = {
     blocks: '/admin/blocks',
     people: '/admin/people',
     audit: '/admin/audit',
+    calendars: '/admin/crop-calendars',
+  },
+  bulletins: {
+    rules: '/bulletins/rules',
+    calendars: '/bulletins/calendars',
   },
   intake: {
     uploads: '/intake',
@@ -71,4 +76,8 @@ export const api = {
   regimes: '/api/regimes',
   regimeComposite: '/api/regimes/composite',
   regimeSettings: '/api/regimes/settings',
+  cropCalendar: (districtId: number) => `/api/districts/${districtId}/crop-calendar`,
+  cropCalendarsImport: '/api/crop-calendars/import',
+  adviceRules: '/api/advice-rules',
+  adviceRule: (id: number) => `/api/advice-rules/${id}`,
 } as const;
