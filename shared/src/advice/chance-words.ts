@@ -39,7 +39,8 @@ export function chanceBand(p: number): ChanceBand {
   if (p >= MOST_FROM) return { kind: 'most' };
   let best = CHANCE_LADDER[0];
   for (const f of CHANCE_LADDER) {
-    if (Math.abs(f[0] / f[1] - p) < Math.abs(best[0] / best[1] - p)) best = f;
+    // A margin keeps exact ties (0.55 between 1/2 and 3/5) with the smaller despite rounding noise.
+    if (Math.abs(f[0] / f[1] - p) < Math.abs(best[0] / best[1] - p) - 1e-9) best = f;
   }
   return { kind: 'fraction', k: best[0], n: best[1] };
 }

@@ -44,7 +44,7 @@ export default function CropCalendarsPage() {
         {districts.data?.length === 0 ? <p>There are no districts yet.</p> : null}
       </PageSection>
       {canEdit ? (
-        <PageSection title="Import crop calendars" region="the import">
+        <PageSection title="Import from CSV" region="the import">
           <ImportCalendars />
         </PageSection>
       ) : null}

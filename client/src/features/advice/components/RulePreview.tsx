@@ -32,14 +32,14 @@ export function RulePreview({ rule, context }: { rule: EvaluableRule; context: A
   ];
   return (
     <section className="rule-preview" aria-label="Preview" aria-live="polite">
-      <p>
+      <div>
         {evaluation.fired ? (
           <Tag type="green">Fires this week</Tag>
         ) : (
           <Tag type="gray">Does not fire this week</Tag>
         )}
         {rule.active ? null : <Tag type="warm-gray">Retired: bulletins will not use it</Tag>}
-      </p>
+      </div>
       <ul className="rule-preview__clauses">
         {rule.condition.clauses.map((clause, index) => (
           // biome-ignore lint/suspicious/noArrayIndexKey: clauses have no identity beyond their place
