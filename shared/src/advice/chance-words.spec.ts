@@ -49,7 +49,8 @@ describe('chanceInWords', () => {
       if (band.kind !== 'fraction') throw new Error(`${pct} % should be a fraction`);
       const distance = Math.abs(band.k / band.n - pct / 100);
       // 1e-9: exact ties are decided for the smaller fraction whatever the rounding noise.
-      for (const [k, n] of CHANCE_LADDER) expect(distance).toBeLessThanOrEqual(Math.abs(k / n - pct / 100) + 1e-9);
+      for (const [k, n] of CHANCE_LADDER)
+        expect(distance).toBeLessThanOrEqual(Math.abs(k / n - pct / 100) + 1e-9);
     }
   });
 
