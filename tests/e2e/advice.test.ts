@@ -58,7 +58,7 @@ describe('the scientist keeps the advice rules and crop calendars', () => {
     const calendar = page.getByRole('table', { name: 'Crop calendar of Hillfoot' });
     await page.getByLabel('District').selectOption({ label: 'Hillfoot' });
     // The demo calendar came in through the same import at first start.
-    await calendar.getByRole('textbox', { name: 'Crop, row 1' }).waitFor();
+    await calendar.getByLabel('Crop, row 1', { exact: true }).waitFor();
     const before = await calendar.getByRole('row').count();
     expect(before).toBeGreaterThan(10);
 
