@@ -64,6 +64,19 @@ describe("the project's importers accept the committed files", () => {
     expect(new Set(result.blocks?.map((b) => b.districtCode))).toEqual(new Set(['RVB', 'LKS', 'HLF', 'UPL']));
   });
 
+  it('crop-calendars.csv passes the crop calendar import checks for the four districts', async () => {
+    const { checkCropCalendarCsv } = (await import(server('advice/crop-calendar-csv.ts'))) as {
+      checkCropCalendarCsv(text: string): {
+        ok: boolean;
+        rows?: { districtCode: string }[];
+        problems?: unknown[];
+      };
+    };
+    const result = checkCropCalendarCsv(text('crop-calendars.csv'));
+    expect(result.problems ?? []).toEqual([]);
+    expect(new Set(result.rows?.map((r) => r.districtCode))).toEqual(new Set(['RVB', 'LKS', 'HLF', 'UPL']));
+  });
+
   it('cells-2025.csv and scans-2025.csv parse without a problem, columns found by their own names', async () => {
     const m = (await import(server('intake/cell-table.ts'))) as CellTableModule;
     const csv = text('cells-2025.csv');

@@ -11,6 +11,7 @@ export { districtRegion, generateBlocks, polygonsOf } from './blocks.js';
 export type { CellMeasure } from './cellprops.js';
 export { coreDbz, fieldDbz, measureCell, vilKgM2 } from './cellprops.js';
 export * from './config.js';
+export { cropCalendarCsv } from './crop-calendars.js';
 export { aeqdProj4, polygonAreaKm2, RadarProjection, ringAreaKm2 } from './geo.js';
 export { BLOCK_NAMES, DISTRICTS } from './names.js';
 export { Rng, ValueNoise } from './prng.js';

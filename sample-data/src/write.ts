@@ -29,6 +29,7 @@ import {
   UTC_OFFSET_TEXT,
   WEAK_FLOW_MS,
 } from './config.js';
+import { cropCalendarCsv } from './crop-calendars.js';
 import { fmt, fromLocalKm } from './geo.js';
 import { readAnomalyCsv, readCellTable, readScanInventory } from './readers.js';
 import { columnMax, interleave, radarGrid, renderVolume } from './render.js';
@@ -456,6 +457,7 @@ export function writeScenario(sc: Scenario, outDir: string, options: WriteOption
   put('site.json', `${JSON.stringify(siteJson(), null, 2)}\n`);
   put('blocks.geojson', blocksText(sc));
   put('lake.geojson', lakeText(sc));
+  put('crop-calendars.csv', cropCalendarCsv());
   put('terrain.tif', terrainTiff(sc));
   const cellsCsv = cellTableText(sc);
   const scansCsv = scanInventoryText(sc);

@@ -1,6 +1,7 @@
 import { type DynamicModule, type MiddlewareConsumer, Module, type NestModule } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
 import { ServeStaticModule } from '@nestjs/serve-static';
+import { AdviceModule } from './advice/advice.module.js';
 import { AuditModule } from './audit/audit.module.js';
 import { AuthModule } from './auth/auth.module.js';
 import { JwtAuthGuard, RolesGuard } from './common/access.guards.js';
@@ -46,6 +47,7 @@ export class AppModule implements NestModule {
         RegimesModule,
         IntakeModule,
         MailModule,
+        AdviceModule,
         DemoModule,
         ...staticClient,
       ],

@@ -24,15 +24,17 @@ const SitesPage = lazy(() => import('../features/intake/sites/components/SitesPa
 const SiteFormPage = lazy(() => import('../features/intake/sites/components/SiteFormPage'));
 const TracksPage = lazy(() => import('../features/intake/tracks/components/TracksPage'));
 const TrackDetailPage = lazy(() => import('../features/intake/tracks/components/TrackDetailPage'));
+const BulletinsLayout = lazy(() => import('./routes/BulletinsLayout'));
+const AdviceRulesPage = lazy(() => import('../features/advice/components/AdviceRulesPage'));
+const CropCalendarsPage = lazy(() => import('../features/advice/components/CropCalendarsPage'));
 
 const placeholderSections: Record<
-  Exclude<Section, 'admin' | 'intake'>,
+  Exclude<Section, 'admin' | 'intake' | 'bulletins'>,
   LazyExoticComponent<ComponentType>
 > = {
   atlas: lazy(() => import('./routes/AtlasPage')),
   regimes: lazy(() => import('./routes/RegimesPage')),
   outlook: lazy(() => import('./routes/OutlookPage')),
-  bulletins: lazy(() => import('./routes/BulletinsPage')),
   inbox: lazy(() => import('./routes/InboxPage')),
   scorecard: lazy(() => import('./routes/ScorecardPage')),
 };
@@ -82,6 +84,20 @@ export const routes: RouteObject[] = [
                 ],
               },
               {
+                path: paths.section.bulletins,
+                element: (
+                  <RequireSection section="bulletins">
+                    <BulletinsLayout />
+                  </RequireSection>
+                ),
+                children: [
+                  { index: true, element: <Navigate to={paths.bulletins.rules} replace /> },
+                  { path: paths.bulletins.rules, element: <AdviceRulesPage /> },
+                  { path: paths.bulletins.calendars, element: <CropCalendarsPage /> },
+                  { path: '*', element: <NotFoundPage /> },
+                ],
+              },
+              {
                 path: paths.section.admin,
                 element: (
                   <RequireSection section="admin">
@@ -95,6 +111,7 @@ export const routes: RouteObject[] = [
                   { path: paths.admin.audit, element: <AuditPage /> },
                   { path: paths.admin.mail, element: <MailLogPage /> },
                   { path: 'mail/messages/:messageId', element: <MailMessagePage /> },
+                  { path: paths.admin.calendars, element: <CropCalendarsPage /> },
                   { path: '*', element: <NotFoundPage /> },
                 ],
               },

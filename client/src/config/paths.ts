@@ -21,6 +21,11 @@ export const paths = {
     audit: '/admin/audit',
     mail: '/admin/mail',
     mailMessage: (id: number | string) => `/admin/mail/messages/${id}`,
+    calendars: '/admin/crop-calendars',
+  },
+  bulletins: {
+    rules: '/bulletins/rules',
+    calendars: '/bulletins/calendars',
   },
   intake: {
     uploads: '/intake',
@@ -83,4 +88,8 @@ export const api = {
   mailMessage: (id: number) => `/api/mail/messages/${id}`,
   mailMessageSource: (id: number) => `/api/mail/messages/${id}/source`,
   mailAttachment: (id: number, index: number) => `/api/mail/messages/${id}/attachments/${index}`,
+  cropCalendar: (districtId: number) => `/api/districts/${districtId}/crop-calendar`,
+  cropCalendarsImport: '/api/crop-calendars/import',
+  adviceRules: '/api/advice-rules',
+  adviceRule: (id: number) => `/api/advice-rules/${id}`,
 } as const;

@@ -51,6 +51,12 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'GET /api/mail/messages/:id': ['admin'],
   'GET /api/mail/messages/:id/source': ['admin'],
   'GET /api/mail/messages/:id/attachments/:index': ['admin'],
+  'GET /api/districts/:id/crop-calendar': ['scientist', 'writer', 'admin'],
+  'PUT /api/districts/:id/crop-calendar': ['scientist', 'admin'],
+  'POST /api/crop-calendars/import': ['scientist', 'admin'],
+  'GET /api/advice-rules': ['scientist', 'writer'],
+  'POST /api/advice-rules': ['scientist'],
+  'PUT /api/advice-rules/:id': ['scientist'],
 };
 
 interface ExpressLayer {

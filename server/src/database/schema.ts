@@ -2,6 +2,7 @@ import type {
   BlockedSector,
   GeoPolygonal,
   RegimeSettings as RegimeSettingsShape,
+  RuleCondition,
   SiteSettings,
 } from '@stormhour/shared';
 import {
@@ -424,3 +425,42 @@ export const mailReceived = pgTable(
     index('mail_received_message_id_idx').on(t.messageId),
   ],
 );
+// ── Crop calendars and advice rules ───────────────────────────────────────────────────────────────
+
+/** One stage of one crop in a district, over ISO weeks (a range may wrap over the new year). */
+export const cropCalendarEntries = pgTable(
+  'crop_calendar_entries',
+  {
+    id: serial('id').primaryKey(),
+    districtId: integer('district_id')
+      .notNull()
+      .references(() => districts.id),
+    crop: text('crop').notNull(),
+    stage: text('stage').notNull(),
+    fromWeek: integer('from_week').notNull(),
+    toWeek: integer('to_week').notNull(),
+    /** The order the stages were given in. */
+    position: integer('position').notNull(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('crop_calendar_district_idx').on(t.districtId)],
+);
+
+/**
+ * Rules that turn a week's outlook into advice. Rules are retired (active = false), never deleted, so a
+ * bulletin can always say which rule proposed its advice.
+ */
+export const adviceRules = pgTable('advice_rules', {
+  id: serial('id').primaryKey(),
+  crop: text('crop'),
+  stage: text('stage'),
+  condition: jsonb('condition').$type<RuleCondition>().notNull(),
+  priority: integer('priority').notNull(),
+  text: text('text').notNull(),
+  source: text('source').notNull(),
+  active: boolean('active').notNull().default(true),
+  origin: text('origin', { enum: ['default', 'unit'] }).notNull(),
+  createdAt: createdAt(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  updatedBy: integer('updated_by').references(() => users.id),
+});

@@ -1,9 +1,13 @@
 import { Module } from '@nestjs/common';
+import { AdviceModule } from '../advice/advice.module.js';
 import { IntakeModule } from '../intake/intake.module.js';
 import { RadarModule } from '../radar/radar.module.js';
 import { RegionsModule } from '../regions/regions.module.js';
 import { UsersModule } from '../users/users.module.js';
 import { DemoSeeder } from './demo.seeder.js';
 
-@Module({ imports: [UsersModule, RegionsModule, RadarModule, IntakeModule], providers: [DemoSeeder] })
+@Module({
+  imports: [UsersModule, RegionsModule, RadarModule, IntakeModule, AdviceModule],
+  providers: [DemoSeeder],
+})
 export class DemoModule {}

@@ -2,6 +2,7 @@ import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { Inject, Injectable, Logger, type OnApplicationBootstrap } from '@nestjs/common';
 import { CreateSiteRequest, type Role } from '@stormhour/shared';
+import { CropCalendarService } from '../advice/crop-calendar.service.js';
 import { AuditService } from '../audit/audit.service.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { IntakeService } from '../intake/intake.service.js';
@@ -15,7 +16,7 @@ export const DEMO_DOMAIN = 'vessary.example';
 
 /**
  * With DEMO=1 and an empty database, loads the invented Vessary Province: its blocks through the
- * normal import, and one account per role (one officer per district). Never runs twice.
+ * normal import, its crop calendars through the calendar import, and one account per role (one officer per district). Never runs twice.
  */
 @Injectable()
 export class DemoSeeder implements OnApplicationBootstrap {
@@ -29,6 +30,7 @@ export class DemoSeeder implements OnApplicationBootstrap {
     private readonly audit: AuditService,
     private readonly sites: SitesService,
     private readonly intake: IntakeService,
+    private readonly calendars: CropCalendarService,
   ) {}
 
   async onApplicationBootstrap(): Promise<void> {
@@ -39,6 +41,10 @@ export class DemoSeeder implements OnApplicationBootstrap {
       await this.regions.importBlocks(null, 'blocks.geojson', readFileSync(blocksFile, 'utf8'));
     } else {
       this.logger.warn(`No demo blocks at ${blocksFile}; the demo starts without blocks.`);
+    }
+    const calendarFile = join(this.config.demoDataDir, 'crop-calendars.csv');
+    if (existsSync(calendarFile)) {
+      await this.calendars.importCsv(null, 'crop-calendars.csv', readFileSync(calendarFile, 'utf8'));
     }
     const passwordHash = await hashPassword(this.config.demoPassword);
     const accounts: { email: string; name: string; role: Role; districtId: number | null }[] = [
