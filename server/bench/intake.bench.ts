@@ -134,7 +134,8 @@ async function startServer(dir: string) {
     }
     await new Promise((r) => setTimeout(r, 100));
   }
-  throw new Error('the server did not start');
+  server.kill('SIGTERM');
+  throw new Error('the server did not start within 90 s');
 }
 
 function pollFigures(ms: number[]): string {
