@@ -1,6 +1,21 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { MailMessageSummary, OutboxState, Page } from '@stormhour/shared';
-import { and, asc, count, desc, eq, ilike, inArray, lte, min, or, type SQL, sql } from 'drizzle-orm';
+import {
+  and,
+  asc,
+  type Column,
+  count,
+  desc,
+  eq,
+  getTableColumns,
+  ilike,
+  inArray,
+  lte,
+  min,
+  or,
+  type SQL,
+  sql,
+} from 'drizzle-orm';
 import { DATABASE, type DatabaseHandle, type Executor } from '../database/database.js';
 import { mailBlobs, mailOutbox, mailReceived } from '../database/schema.js';
 
@@ -41,17 +56,17 @@ export class MailRepository {
   async storeBlob(sha256: string, content: Buffer, executor: Executor = this.handle.db): Promise<void> {
     await executor
       .insert(mailBlobs)
-      .values({ sha256, content, size: content.length })
+      .values({ sha256, content: toBytea(content), size: content.length })
       .onConflictDoNothing({ target: mailBlobs.sha256 });
   }
 
   async blobs(hashes: string[]): Promise<Map<string, Buffer>> {
     if (hashes.length === 0) return new Map();
     const rows = await this.handle.db
-      .select({ sha256: mailBlobs.sha256, content: mailBlobs.content })
+      .select({ sha256: mailBlobs.sha256, content: fromBytea(mailBlobs.content) })
       .from(mailBlobs)
       .where(inArray(mailBlobs.sha256, hashes));
-    return new Map(rows.map((r) => [r.sha256, Buffer.from(r.content)]));
+    return new Map(rows.map((r) => [r.sha256, Buffer.from(r.content, 'base64')]));
   }
 
   async findOutbox(id: number): Promise<OutboxRow | undefined> {
@@ -141,7 +156,7 @@ export class MailRepository {
   async insertReceived(row: NewReceivedRow): Promise<number> {
     const [created] = await this.handle.db
       .insert(mailReceived)
-      .values(row)
+      .values({ ...row, raw: toBytea(row.raw) })
       .returning({ id: mailReceived.id });
     return created.id;
   }
@@ -181,10 +196,13 @@ export class MailRepository {
   }
 
   async findReceived(id: number): Promise<(ReceivedRow & { sameMessageIdCount: number }) | undefined> {
-    const [row] = await this.handle.db.select().from(mailReceived).where(eq(mailReceived.id, id));
+    const [row] = await this.handle.db
+      .select({ ...getTableColumns(mailReceived), raw: fromBytea(mailReceived.raw) })
+      .from(mailReceived)
+      .where(eq(mailReceived.id, id));
     if (!row) return undefined;
     const sameMessageIdCount = row.messageId ? await this.countMessageId(row.messageId) : 1;
-    return { ...row, raw: Buffer.from(row.raw), sameMessageIdCount };
+    return { ...row, raw: Buffer.from(row.raw, 'base64'), sameMessageIdCount };
   }
 
   private async countMessageId(messageId: string): Promise<number> {
@@ -226,6 +244,17 @@ export function toSummary(r: {
     sizeBytes: r.sizeBytes,
     sameMessageIdCount: r.sameMessageIdCount,
   };
+}
+
+/*
+ * PGlite converts bytea parameters and results slowly (a 280 kB message: ~270 ms in, ~135 ms out on the
+ * development machine); passing them as base64 text through decode()/encode() took 77 ms and 10 ms.
+ */
+function toBytea(content: Buffer): SQL {
+  return sql`decode(${content.toString('base64')}, 'base64')`;
+}
+function fromBytea(column: Column): SQL<string> {
+  return sql<string>`encode(${column}, 'base64')`;
 }
 
 /** A search text is matched literally: % and _ are not wildcards to the person typing. */
