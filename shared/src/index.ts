@@ -2,6 +2,7 @@ export * from './audit.js';
 export * from './auth.js';
 export * from './errors.js';
 export * from './intake.js';
+export * from './outlook.js';
 export * from './radar.js';
 export * from './regimes.js';
 export * from './regions.js';
