@@ -13,6 +13,7 @@ import { DemoModule } from './demo/demo.module.js';
 import { HealthModule } from './health/health.module.js';
 import { IntakeModule } from './intake/intake.module.js';
 import { JobsModule } from './jobs/jobs.module.js';
+import { OutlookModule } from './outlook/outlook.module.js';
 import { RadarModule } from './radar/radar.module.js';
 import { RegimesModule } from './regimes/regimes.module.js';
 import { RegionsModule } from './regions/regions.module.js';
@@ -44,6 +45,7 @@ export class AppModule implements NestModule {
         RadarModule,
         RegimesModule,
         IntakeModule,
+        OutlookModule,
         DemoModule,
         ...staticClient,
       ],

@@ -41,6 +41,8 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'GET /api/regimes/composite': ['scientist', 'writer'],
   'GET /api/regimes/settings': ['scientist', 'writer'],
   'PUT /api/regimes/settings': ['scientist'],
+  'GET /api/outlook': ['scientist', 'writer'],
+  'GET /api/outlook.csv': ['scientist', 'writer'],
 };
 
 interface ExpressLayer {
