@@ -71,4 +71,7 @@ export const api = {
   regimes: '/api/regimes',
   regimeComposite: '/api/regimes/composite',
   regimeSettings: '/api/regimes/settings',
+  regimesExpected: '/api/regimes/expected',
+  outlook: '/api/outlook',
+  outlookCsv: '/api/outlook.csv',
 } as const;

@@ -98,6 +98,19 @@ export async function request<T>(path: string, options: RequestOptions = {}): Pr
   return (text ? JSON.parse(text) : undefined) as T;
 }
 
+/** Calls the API for a text answer (a CSV export), with the same session handling as request(). */
+export async function requestText(path: string): Promise<string> {
+  let res = await send(path, {});
+  if (res.status === 401) {
+    const renewed = await refreshSession();
+    if (renewed) res = await send(path, {});
+    if (res.status === 401) handlers.onLost();
+  }
+  const text = await res.text();
+  if (!res.ok) throw apiErrorFrom(res.status, text);
+  return text;
+}
+
 interface XhrResult {
   status: number;
   text: string;
