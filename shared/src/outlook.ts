@@ -40,10 +40,17 @@ export const OutlookQuery = z
     to: day.optional(),
     binHours: z.coerce
       .number()
-      .refine((h) => (BIN_HOURS as readonly number[]).includes(h), 'Choose a bin width of 1, 2, 3, 4 or 6 hours')
+      .refine(
+        (h) => (BIN_HOURS as readonly number[]).includes(h),
+        'Choose a bin width of 1, 2, 3, 4 or 6 hours',
+      )
       .default(3),
     measure: z.enum(OUTLOOK_MEASURES, { message: 'Choose onsets or presence' }).default('onsets'),
-    radiusKm: z.coerce.number().min(0, 'The radius cannot be negative').max(50, 'Keep the radius within 50 km').default(0),
+    radiusKm: z.coerce
+      .number()
+      .min(0, 'The radius cannot be negative')
+      .max(50, 'Keep the radius within 50 km')
+      .default(0),
     /** Which stored source to count; by default the one with the most onsets in the period. */
     source: z.enum(OUTLOOK_SOURCES, { message: 'Choose cell-table, volume or column-max' }).optional(),
     interval: z.enum(INTERVAL_METHODS, { message: 'Choose jeffreys or wilson' }).default('jeffreys'),
@@ -59,7 +66,11 @@ export const OutlookQuery = z
         message: 'The afternoon window must end after it starts',
       });
     if (q.from && q.to && q.from > q.to)
-      ctx.addIssue({ code: 'custom', path: ['to'], message: 'The period must end on or after its first day' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['to'],
+        message: 'The period must end on or after its first day',
+      });
   });
 export type OutlookQuery = z.infer<typeof OutlookQuery>;
 export type OutlookQueryInput = z.input<typeof OutlookQuery>;

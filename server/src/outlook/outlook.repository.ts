@@ -38,6 +38,17 @@ export class OutlookRepository {
   constructor(@Inject(DATABASE) private readonly handle: DatabaseHandle) {}
 
   /**
+   * Moves on whenever any transaction that wrote anything has ended (the next transaction id to be
+   * assigned: read-only statements get none). One function call, no table read.
+   */
+  async writeMark(): Promise<string> {
+    const res = await this.handle.pg.query<{ m: string }>(
+      'select txid_snapshot_xmax(txid_current_snapshot())::text as m',
+    );
+    return res.rows[0].m;
+  }
+
+  /**
    * A cheap fingerprint of everything an outlook depends on: the newest ids of tracks, cells, scans,
    * anomaly fields and settings versions, the last finished job (onsets are re-decided and anomaly
    * fields replaced in place by jobs), the blocks and districts, and the site's own row.
@@ -71,53 +82,78 @@ export class OutlookRepository {
   /** Counted onsets of one source: start time, start block and start lon/lat. */
   async onsets(siteId: number, source: string, r: TimeRange): Promise<EventColumns> {
     const t = range(r, 'first_time', 3);
-    const res = await this.handle.pg.query<[number, number | null, number, number]>(
-      `select (extract(epoch from first_time) * 1000)::float8, start_block_id, start_lon, start_lat
-       from tracks where site_id = $1 and source = $2 and onset${t.sql}`,
+    return this.packedColumns(
+      `from tracks where site_id = $1 and source = $2 and onset${t.sql}`,
+      ['first_time', 'start_block_id', 'start_lon', 'start_lat'],
       [siteId, source, ...t.params],
-      { rowMode: 'array' },
     );
-    return columns(res.rows);
   }
 
   /** Cells of storm tracks of one source: scan time, block and position in the site plane (km). */
   async stormCells(siteId: number, source: string, r: TimeRange): Promise<EventColumns> {
     const t = range(r, 'c.scan_time', 3);
-    const res = await this.handle.pg.query<[number, number | null, number, number]>(
-      `select (extract(epoch from c.scan_time) * 1000)::float8, c.block_id, c.x_km, c.y_km
-       from cells c join tracks k on k.id = c.track_id
-       where c.site_id = $1 and c.source = $2 and k.is_storm${t.sql}`,
+    return this.packedColumns(
+      `from cells c join tracks k on k.id = c.track_id where c.site_id = $1 and c.source = $2 and k.is_storm${t.sql}`,
+      ['c.scan_time', 'c.block_id', 'c.x_km', 'c.y_km'],
       [siteId, source, ...t.params],
-      { rowMode: 'array' },
     );
-    return columns(res.rows);
   }
 
-  /** Distinct scan times from the given sources, sorted (UTC ms). */
+  /**
+   * Scan times from the given sources (UTC ms), sorted, each once. Sorted and deduplicated here rather
+   * than by the database: a season of 30 000 scans per source is quicker to sort as a typed array.
+   */
   async scanTimes(siteId: number, sources: string[], r: TimeRange): Promise<Float64Array> {
     const t = range(r, 'time', 3);
-    const res = await this.handle.pg.query<[number]>(
-      `select distinct (extract(epoch from time) * 1000)::float8 as t from scans
-       where site_id = $1 and source = any($2::text[])${t.sql} order by t`,
+    const res = await this.handle.pg.query<{ t: Uint8Array | null }>(
+      `select string_agg(float8send((extract(epoch from time) * 1000)::float8), ''::bytea) as t from scans
+       where site_id = $1 and source = any($2::text[])${t.sql}`,
       [siteId, sources, ...t.params],
-      { rowMode: 'array' },
     );
-    return Float64Array.from(res.rows, (row) => row[0]);
+    const times = unpackFloat64(res.rows[0]?.t ?? null).sort();
+    let kept = 0;
+    for (let i = 0; i < times.length; i++)
+      if (i === 0 || times[i] !== times[kept - 1]) times[kept++] = times[i];
+    return times.slice(0, kept);
+  }
+
+  /**
+   * Reads four columns (a time, a block id, two coordinates) as one packed binary value each: the
+   * database hands back one row instead of tens of thousands, which it converts far faster. The
+   * aggregates of one query see the rows in the same order, so the columns stay aligned.
+   */
+  private async packedColumns(fromWhere: string, [time, block, a, b]: string[], params: unknown[]) {
+    const res = await this.handle.pg.query<Record<'t' | 'k' | 'a' | 'b', Uint8Array | null>>(
+      `select string_agg(float8send((extract(epoch from ${time}) * 1000)::float8), ''::bytea) as t,
+              string_agg(int4send(coalesce(${block}, -1)), ''::bytea) as k,
+              string_agg(float8send(${a}), ''::bytea) as a,
+              string_agg(float8send(${b}), ''::bytea) as b
+       ${fromWhere}`,
+      params,
+    );
+    const row = res.rows[0];
+    return {
+      time: unpackFloat64(row?.t ?? null),
+      blockId: unpackInt32(row?.k ?? null),
+      a: unpackFloat64(row?.a ?? null),
+      b: unpackFloat64(row?.b ?? null),
+    };
   }
 }
 
-function columns(rows: [number, number | null, number, number][]): EventColumns {
-  const out: EventColumns = {
-    time: new Float64Array(rows.length),
-    blockId: new Int32Array(rows.length),
-    a: new Float64Array(rows.length),
-    b: new Float64Array(rows.length),
-  };
-  rows.forEach((row, i) => {
-    out.time[i] = row[0];
-    out.blockId[i] = row[1] ?? -1;
-    out.a[i] = row[2];
-    out.b[i] = row[3];
-  });
+/** PostgreSQL's binary send format is big-endian. */
+function unpackFloat64(bytes: Uint8Array | null): Float64Array {
+  if (!bytes) return new Float64Array(0);
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const out = new Float64Array(bytes.byteLength / 8);
+  for (let i = 0; i < out.length; i++) out[i] = view.getFloat64(i * 8, false);
+  return out;
+}
+
+function unpackInt32(bytes: Uint8Array | null): Int32Array {
+  if (!bytes) return new Int32Array(0);
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const out = new Int32Array(bytes.byteLength / 4);
+  for (let i = 0; i < out.length; i++) out[i] = view.getInt32(i * 4, false);
   return out;
 }

@@ -17,8 +17,8 @@ import { areaAndPerimeter, bufferedAreaKm2, coverageFraction, toPlane } from './
 import { dateOfDay, dayOfDate, localDay, localMidnightUtc } from './engine/local-time.js';
 import { blocksWithin, ownBlock } from './engine/neighbourhood.js';
 import { computeOutlook, type OutlookResult } from './engine/outlook.js';
-import { outlookCsv } from './outlook-csv.js';
 import { type EventColumns, OutlookRepository, type TimeRange } from './outlook.repository.js';
+import { outlookCsv } from './outlook-csv.js';
 
 /** A computed outlook, kept serialised so a cached answer costs no work but the version check. */
 export interface OutlookAnswer {
@@ -45,13 +45,17 @@ const round = (v: number | null) => (v === null ? null : Math.round(v * 1e6) / 1
  * The block outlook (DESIGN §3.5). Answers are cached in memory by their inputs and checked, on every
  * request, against a fingerprint of the data they were made from (OutlookRepository.dataVersion): new
  * tracks, cells, scans, anomaly fields, finished jobs, settings, blocks or site changes give a new
- * fingerprint and the next request computes afresh. One query per request; no other module needs to
- * remember to invalidate anything.
+ * fingerprint and the next request computes afresh. The fingerprint itself is read again only after
+ * some transaction has written (the write mark moved), so a cached answer costs one trivial query;
+ * no other module needs to remember to invalidate anything.
  */
 @Injectable()
 export class OutlookService {
   private readonly answers = new Map<string, Entry>();
   private readonly loads = new Map<string, { version: string; data: Promise<Loaded> }>();
+  /** Fingerprints per site, valid while nothing has been written since they were read. */
+  private fingerprints = { mark: '', bySite: new Map<number, string | null>() };
+  private readonly regimeDays = new Map<string, { version: string; days: Promise<RegimeList> }>();
 
   constructor(
     private readonly repo: OutlookRepository,
@@ -61,7 +65,7 @@ export class OutlookService {
   ) {}
 
   async outlook(q: OutlookQuery): Promise<OutlookAnswer> {
-    const version = await this.repo.dataVersion(q.siteId);
+    const version = await this.fingerprint(q.siteId);
     if (version === null) throw new NotFoundException(`There is no radar site with id ${q.siteId}.`);
     const key = JSON.stringify(q, Object.keys(q).sort());
     const hit = this.answers.get(key);
@@ -76,6 +80,20 @@ export class OutlookService {
     answer.catch(() => this.answers.delete(key));
     while (this.answers.size > MAX_ANSWERS) this.answers.delete(this.answers.keys().next().value as string);
     return answer;
+  }
+
+  /**
+   * The site's data fingerprint. While no transaction has written anything since it was read (the
+   * database's write mark is unchanged), it cannot have changed and is not read again.
+   */
+  private async fingerprint(siteId: number): Promise<string | null> {
+    const mark = await this.repo.writeMark();
+    if (mark !== this.fingerprints.mark) this.fingerprints = { mark, bySite: new Map() };
+    const known = this.fingerprints.bySite.get(siteId);
+    if (known !== undefined) return known;
+    const version = await this.repo.dataVersion(siteId);
+    this.fingerprints.bySite.set(siteId, version);
+    return version;
   }
 
   private async compute(q: OutlookQuery, version: string): Promise<OutlookResponse> {
@@ -98,7 +116,7 @@ export class OutlookService {
     const from = firstDay === null ? null : dateOfDay(firstDay);
     const to = lastDay === null ? null : dateOfDay(lastDay);
 
-    const regimes = from && to ? await this.regimes.regimes(q.siteId, from, to) : { days: [], counts: [] };
+    const regimes = from && to ? await this.regimesOf(q.siteId, from, to, version) : { days: [], counts: [] };
     let selected = allDays;
     if (q.regime !== ALL_DAYS) {
       const dates = new Set(regimes.days.filter((d) => d.regime === q.regime).map((d) => d.date));
@@ -128,7 +146,9 @@ export class OutlookService {
     };
     const result = computeOutlook({ ...common, days: Int32Array.from(selected) });
     const climatology: OutlookResult =
-      q.regime === ALL_DAYS ? result : computeOutlook({ ...common, days: Int32Array.from(allDays) });
+      q.regime === ALL_DAYS
+        ? result
+        : computeOutlook({ ...common, days: Int32Array.from(allDays), withIntervals: false });
 
     const bins = Array.from({ length: 24 / q.binHours }, (_, index) => {
       const fromHour = index * q.binHours;
@@ -184,9 +204,29 @@ export class OutlookService {
       daysInPeriod: allDays.length,
       regimeDays: selected.length,
       regimes: regimes.counts,
-      priors: { bins: result.priors.bins.map(prior), afternoon: prior(result.priors.afternoon), method: 'moments' },
+      priors: {
+        bins: result.priors.bins.map(prior),
+        afternoon: prior(result.priors.afternoon),
+        method: 'moments',
+      },
       blocks,
     };
+  }
+
+  /** The regime of each day of the period, classified once per data version (all regimes at once). */
+  private regimesOf(siteId: number, from: string, to: string, version: string): Promise<RegimeList> {
+    const key = `${siteId}|${from}|${to}`;
+    const hit = this.regimeDays.get(key);
+    if (hit && hit.version === version) return hit.days;
+    const days = this.regimes.regimes(siteId, from, to).then(({ days, counts }) => ({
+      days: days.map((d) => ({ date: d.date, regime: d.regime })),
+      counts,
+    }));
+    this.regimeDays.set(key, { version, days });
+    days.catch(() => this.regimeDays.delete(key));
+    while (this.regimeDays.size > MAX_LOADS)
+      this.regimeDays.delete(this.regimeDays.keys().next().value as string);
+    return days;
   }
 
   /** Events, scans and block geometry for a site, source, measure, radius and period, loaded once. */
@@ -233,6 +273,11 @@ export class OutlookService {
     }
     return { scanTimes, events, eventBlocks, blocks };
   }
+}
+
+interface RegimeList {
+  days: { date: string; regime: string | null }[];
+  counts: { regime: string; days: number }[];
 }
 
 interface Loaded {

@@ -40,7 +40,8 @@ describe('GET /api/outlook on the demo season', () => {
       .expect(201);
     auth = { Authorization: `Bearer ${await t.signedIn('scientist')}` };
     writer = { Authorization: `Bearer ${await t.signedIn('writer')}` };
-    siteId = (await t.http.post('/api/radar-sites').set(auth).send(site.createSiteRequest).expect(201)).body.id;
+    siteId = (await t.http.post('/api/radar-sites').set(auth).send(site.createSiteRequest).expect(201)).body
+      .id;
     expect((await upload('anomaly-grid', grids)).state).toBe('done');
     expect((await upload('scan-inventory', [scans])).state).toBe('done');
     expect((await upload('cell-table', [cells])).state).toBe('done');
@@ -57,7 +58,16 @@ describe('GET /api/outlook on the demo season', () => {
     expect(all.to).toBe('2025-09-30');
     expect(all.daysInPeriod).toBe(122);
     expect(all.blocks).toHaveLength(31);
-    expect(all.bins.map((b) => b.label)).toEqual(['00–03', '03–06', '06–09', '09–12', '12–15', '15–18', '18–21', '21–24']);
+    expect(all.bins.map((b) => b.label)).toEqual([
+      '00–03',
+      '03–06',
+      '06–09',
+      '09–12',
+      '12–15',
+      '15–18',
+      '18–21',
+      '21–24',
+    ]);
     for (const b of all.blocks) {
       expect(b.hasData).toBe(true);
       for (const f of b.bins) {
@@ -70,7 +80,9 @@ describe('GET /api/outlook on the demo season', () => {
       }
     }
     // The long outage starts 10:30–12:30 local: some bin around midday has fewer days than the night bins.
-    expect(Math.min(...all.blocks[0].bins.map((f) => f.n as number))).toBeLessThan(all.blocks[0].bins[0].n as number);
+    expect(Math.min(...all.blocks[0].bins.map((f) => f.n as number))).toBeLessThan(
+      all.blocks[0].bins[0].n as number,
+    );
   });
 
   it('gives hill blocks a higher afternoon chance than valley blocks (the generator triggers storms over the hills)', () => {
@@ -93,11 +105,7 @@ describe('GET /api/outlook on the demo season', () => {
     for (const { regime, days } of all.regimes) {
       const moisture = regime.split(' / ')[0];
       if (!(moisture in byMoisture)) continue;
-      const res = await t.http
-        .get('/api/outlook')
-        .query({ siteId, regime })
-        .set(auth)
-        .expect(200);
+      const res = await t.http.get('/api/outlook').query({ siteId, regime }).set(auth).expect(200);
       const o = res.body as OutlookResponse;
       expect(o.regimeDays).toBe(days);
       expect(o.blocks[0].climatologyRate).toBe(all.blocks[0].afternoon.rate);
@@ -116,8 +124,12 @@ describe('GET /api/outlook on the demo season', () => {
   });
 
   it('counts more with presence than with onsets, and more with a neighbourhood radius', async () => {
-    const presence: OutlookResponse = (await t.http.get('/api/outlook').query({ siteId, measure: 'presence' }).set(auth).expect(200)).body;
-    const wide: OutlookResponse = (await t.http.get('/api/outlook').query({ siteId, radiusKm: 10 }).set(auth).expect(200)).body;
+    const presence: OutlookResponse = (
+      await t.http.get('/api/outlook').query({ siteId, measure: 'presence' }).set(auth).expect(200)
+    ).body;
+    const wide: OutlookResponse = (
+      await t.http.get('/api/outlook').query({ siteId, radiusKm: 10 }).set(auth).expect(200)
+    ).body;
     all.blocks.forEach((b, i) => {
       expect(presence.blocks[i].afternoon.x as number).toBeGreaterThanOrEqual(b.afternoon.x as number);
       expect(wide.blocks[i].afternoon.x as number).toBeGreaterThanOrEqual(b.afternoon.x as number);
@@ -159,11 +171,23 @@ describe('GET /api/outlook on the demo season', () => {
   });
 
   it('names the field that is wrong, and answers 404 for an unknown site', async () => {
-    const bad = await t.http.get('/api/outlook').query({ siteId, binHours: 5, measure: 'rain' }).set(auth).expect(400);
+    const bad = await t.http
+      .get('/api/outlook')
+      .query({ siteId, binHours: 5, measure: 'rain' })
+      .set(auth)
+      .expect(400);
     expect(bad.body.details.map((d: { where: string }) => d.where).sort()).toEqual(['binHours', 'measure']);
-    const window = await t.http.get('/api/outlook').query({ siteId, afternoonFrom: 18, afternoonTo: 12 }).set(auth).expect(400);
+    const window = await t.http
+      .get('/api/outlook')
+      .query({ siteId, afternoonFrom: 18, afternoonTo: 12 })
+      .set(auth)
+      .expect(400);
     expect(window.body.details[0].where).toBe('afternoonTo');
-    const regime = await t.http.get('/api/outlook').query({ siteId, regime: 'soggy / sideways' }).set(auth).expect(400);
+    const regime = await t.http
+      .get('/api/outlook')
+      .query({ siteId, regime: 'soggy / sideways' })
+      .set(auth)
+      .expect(400);
     expect(regime.body.details[0].where).toBe('regime');
     await t.http.get('/api/outlook').query({ siteId: 99999 }).set(auth).expect(404);
   });

@@ -1,4 +1,9 @@
-import type { ExpectedRegimeResponse, IntervalMethod, OutlookMeasure, OutlookResponse } from '@stormhour/shared';
+import type {
+  ExpectedRegimeResponse,
+  IntervalMethod,
+  OutlookMeasure,
+  OutlookResponse,
+} from '@stormhour/shared';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../config/paths';
 import { request, requestText } from '../../lib/api';

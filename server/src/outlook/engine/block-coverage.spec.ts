@@ -83,7 +83,12 @@ describe('neighbourhood of a block', () => {
 
   it('lists every block an event is near, and none for an event far away', () => {
     const east = toPlane(squareAt(10, 0, 10), plane);
-    const found = blocksWithin(Float64Array.from([4.9, 0, 30]), Float64Array.from([0, 0, 30]), [square, east], 0.5);
+    const found = blocksWithin(
+      Float64Array.from([4.9, 0, 30]),
+      Float64Array.from([0, 0, 30]),
+      [square, east],
+      0.5,
+    );
     expect(Array.from(found.offsets)).toEqual([0, 2, 3, 3]);
     expect(Array.from(found.blockIndex)).toEqual([0, 1, 0]);
   });

@@ -26,7 +26,12 @@ export function inRings(rings: Position[][], x: number, y: number): boolean {
  * cells shrink toward the poles). A block with no blocked sector whose every vertex lies within range
  * is wholly covered: the range disc is convex.
  */
-export function coverageFraction(geometry: GeoPolygonal, coverage: Coverage, plane: SitePlane, steps = 40): number {
+export function coverageFraction(
+  geometry: GeoPolygonal,
+  coverage: Coverage,
+  plane: SitePlane,
+  steps = 40,
+): number {
   const covered = (lon: number, lat: number) => {
     const [x, y] = plane.toKm(lon, lat);
     return isCovered(coverage, Math.hypot(x, y), azimuthOf(x, y));
@@ -66,7 +71,9 @@ export function coverageFraction(geometry: GeoPolygonal, coverage: Coverage, pla
 
 /** A block's outline in the site plane (km). */
 export function toPlane(geometry: GeoPolygonal, plane: SitePlane): Position[][][] {
-  return polygonsOf(geometry).map((rings) => rings.map((ring) => ring.map(([lon, lat]) => plane.toKm(lon, lat))));
+  return polygonsOf(geometry).map((rings) =>
+    rings.map((ring) => ring.map(([lon, lat]) => plane.toKm(lon, lat))),
+  );
 }
 
 /** Area and perimeter (outer rings) of a block in the plane, km² and km. */

@@ -27,17 +27,20 @@ describe('binomial intervals', () => {
     [15, 148, 0.0624, 0.1605, 0.0604, 0.1576],
     [0, 20, 0, 0.1611, 0, 0.1166],
     [1, 29, 0.0061, 0.1718, 0.0037, 0.1501],
-  ])('%i/%i matches Newcombe’s Wilson bounds and the computed Jeffreys bounds to 1e-4', (x, n, wl, wu, jl, ju) => {
-    const w = wilsonInterval(x, n, z95);
-    const j = jeffreysInterval(x, n, z95);
-    for (const [got, want] of [
-      [w.lower, wl],
-      [w.upper, wu],
-      [j.lower, jl],
-      [j.upper, ju],
-    ])
-      expect(Math.abs(got - want)).toBeLessThanOrEqual(0.5e-4 + 1e-12);
-  });
+  ])(
+    '%i/%i matches Newcombe’s Wilson bounds and the computed Jeffreys bounds to 1e-4',
+    (x, n, wl, wu, jl, ju) => {
+      const w = wilsonInterval(x, n, z95);
+      const j = jeffreysInterval(x, n, z95);
+      for (const [got, want] of [
+        [w.lower, wl],
+        [w.upper, wu],
+        [j.lower, jl],
+        [j.upper, ju],
+      ])
+        expect(Math.abs(got - want)).toBeLessThanOrEqual(0.5e-4 + 1e-12);
+    },
+  );
 
   it('closes the Jeffreys interval at 0 when x = 0 and at 1 when x = n (Brown, Cai & DasGupta 2001, §4.1.2)', () => {
     expect(jeffreysInterval(0, 12, 0.9).lower).toBe(0);
@@ -48,7 +51,8 @@ describe('binomial intervals', () => {
   it('puts the Wilson bounds where the score statistic equals z (the interval’s definition, Wilson 1927)', () => {
     const z = 1.6448536269514722; // standard normal 95th percentile (published tables: 1.645)
     const { lower, upper } = wilsonInterval(7, 31, 0.9);
-    for (const p of [lower, upper]) expect(Math.abs(7 / 31 - p) / Math.sqrt((p * (1 - p)) / 31)).toBeCloseTo(z, 9);
+    for (const p of [lower, upper])
+      expect(Math.abs(7 / 31 - p) / Math.sqrt((p * (1 - p)) / 31)).toBeCloseTo(z, 9);
   });
 
   it('has no interval without days', () => {

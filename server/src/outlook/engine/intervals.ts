@@ -29,8 +29,27 @@ export function wilsonInterval(x: number, n: number, level: number): Interval {
   return { lower: Math.max(0, centre - half), upper: Math.min(1, centre + half) };
 }
 
+/**
+ * Beta quantiles cost tens of microseconds each and an outlook asks for thousands, mostly the same
+ * (x, n) again (n is shared by every block of a bin): answers are remembered, up to a bound.
+ */
+const remembered = new Map<string, Interval>();
+const REMEMBER_AT_MOST = 100_000;
+
 /** The interval of x successes in n trials by the chosen method; null when n is 0. */
-export function binomialInterval(method: IntervalMethod, x: number, n: number, level: number): Interval | null {
+export function binomialInterval(
+  method: IntervalMethod,
+  x: number,
+  n: number,
+  level: number,
+): Interval | null {
   if (n <= 0) return null;
-  return method === 'wilson' ? wilsonInterval(x, n, level) : jeffreysInterval(x, n, level);
+  const key = `${method}|${x}|${n}|${level}`;
+  let found = remembered.get(key);
+  if (!found) {
+    found = method === 'wilson' ? wilsonInterval(x, n, level) : jeffreysInterval(x, n, level);
+    if (remembered.size >= REMEMBER_AT_MOST) remembered.clear();
+    remembered.set(key, found);
+  }
+  return found;
 }

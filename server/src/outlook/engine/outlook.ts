@@ -29,6 +29,8 @@ export interface OutlookInput {
   minBlockCoverage: number;
   interval: IntervalMethod;
   level: number;
+  /** False when only rates are wanted (the all-days climatology beside a regime): no intervals. */
+  withIntervals?: boolean;
 }
 
 export interface BlockResult {
@@ -77,19 +79,23 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
   const span = dayCount ? days[dayCount - 1] - firstDay + 1 : 0;
   const position = new Int32Array(span).fill(-1);
   for (let p = 0; p < dayCount; p++) position[days[p] - firstDay] = p;
-  const positionOf = (t: number): [number, number] => {
+  // Day position (−1 outside the days asked about) and local hour of an instant, without allocating:
+  // this runs for every scan and event of the period.
+  let hourOf = 0;
+  const positionOf = (t: number): number => {
     const local = t + offsetMs;
     const day = Math.floor(local / DAY_MS);
     const i = day - firstDay;
-    if (i < 0 || i >= span) return [-1, 0];
-    return [position[i], Math.floor((local - day * DAY_MS) / HOUR_MS)];
+    if (i < 0 || i >= span) return -1;
+    hourOf = Math.floor((local - day * DAY_MS) / HOUR_MS);
+    return position[i];
   };
 
   // Availability: scans present per local day and hour, against those expected.
   const scansByHour = new Uint16Array(dayCount * 24);
   for (let s = 0; s < input.scanTimes.length; s++) {
-    const [p, h] = positionOf(input.scanTimes[s]);
-    if (p >= 0) scansByHour[p * 24 + h]++;
+    const p = positionOf(input.scanTimes[s]);
+    if (p >= 0) scansByHour[p * 24 + hourOf]++;
   }
   const perHour = 60 / input.intervalMin;
   const available = (p: number, from: number, to: number) => {
@@ -120,8 +126,9 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
   const eventsAfternoon = new Float64Array(blocks);
   const { offsets, blockIndex } = input.eventBlocks;
   for (let e = 0; e < input.eventTimes.length; e++) {
-    const [p, h] = positionOf(input.eventTimes[e]);
+    const p = positionOf(input.eventTimes[e]);
     if (p < 0) continue;
+    const h = hourOf;
     const k = Math.floor(h / binHours);
     const inBin = binCounted[p * bins + k] === 1;
     const inAfternoon = h >= fromHour && h < toHour && afternoonCounted[p] === 1;
@@ -152,7 +159,8 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
     let c = 0;
     for (let p = 0; p < dayCount; p++) {
       const mask = seen[b * dayCount + p];
-      for (let k = 0; k < bins; k++) if (mask & binMasks[k] && binCounted[p * bins + k]) x[b * bins + k]++;
+      if (mask !== 0)
+        for (let k = 0; k < bins; k++) if (mask & binMasks[k] && binCounted[p * bins + k]) x[b * bins + k]++;
       if (afternoonCounted[p]) {
         const hit = mask & afternoonMask ? 1 : 0;
         hits[c++] = hit;
@@ -172,7 +180,7 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
   const afternoonPrior = fitBetaPrior(xAfternoon, nAfternoon);
 
   const figure = (xb: number, nb: number, events: number, area: number, prior: BetaPrior): OutlookFigure => {
-    const ci = binomialInterval(interval, xb, nb, level);
+    const ci = input.withIntervals === false ? null : binomialInterval(interval, xb, nb, level);
     return {
       n: nb,
       x: xb,
@@ -186,18 +194,31 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
 
   const results: BlockResult[] = input.blocks.map((block, b) => {
     if (!hasData[b])
-      return { hasData: false, bins: Array(bins).fill(NO_DATA), afternoon: NO_DATA, week: weeks[b], peakBin: null };
+      return {
+        hasData: false,
+        bins: Array(bins).fill(NO_DATA),
+        afternoon: NO_DATA,
+        week: weeks[b],
+        peakBin: null,
+      };
     const figures = binPriors.map((prior, k) =>
       figure(x[b * bins + k], n[b * bins + k], eventsPerBin[b * bins + k], block.countingAreaKm2, prior),
     );
     let peakBin: number | null = null;
     figures.forEach((f, k) => {
-      if (f.shrunk !== null && (peakBin === null || f.shrunk > (figures[peakBin].shrunk as number))) peakBin = k;
+      if (f.shrunk !== null && (peakBin === null || f.shrunk > (figures[peakBin].shrunk as number)))
+        peakBin = k;
     });
     return {
       hasData: true,
       bins: figures,
-      afternoon: figure(xAfternoon[b], nAfternoon[b], eventsAfternoon[b], block.countingAreaKm2, afternoonPrior),
+      afternoon: figure(
+        xAfternoon[b],
+        nAfternoon[b],
+        eventsAfternoon[b],
+        block.countingAreaKm2,
+        afternoonPrior,
+      ),
       week: weeks[b],
       peakBin,
     };
@@ -207,13 +228,13 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
 
 /**
  * Windows overlap, so they are not independent trials: the interval is drawn as if from the
- * ⌊days / 7⌋ separate weeks the record holds, at the windows' hit rate.
+ * ⌊days / 7⌋ separate weeks the record holds, at the windows' hit rate (rounded to whole weeks).
  */
 function weekFigure(hitByDay: Uint8Array, method: IntervalMethod, level: number): OutlookWeek {
   const { windows, hits } = weekWindows(hitByDay);
   if (windows === 0) return { windows, hits, rate: null, lower: null, upper: null };
   const rate = hits / windows;
   const weeks = Math.floor(hitByDay.length / 7);
-  const ci = binomialInterval(method, rate * weeks, weeks, level);
+  const ci = binomialInterval(method, Math.round(rate * weeks), weeks, level);
   return { windows, hits, rate, lower: ci?.lower ?? null, upper: ci?.upper ?? null };
 }

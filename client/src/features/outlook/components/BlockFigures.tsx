@@ -48,7 +48,8 @@ export function BlockFigures({ outlook }: { outlook: OutlookResponse }) {
       description={`Afternoon = ${outlook.afternoon.fromHour}–${outlook.afternoon.toHour} local. Week = at least one afternoon storm in 7 consecutive counted days, counted from the record.`}
       empty="No blocks."
       renderCell={(header, value) => {
-        if (value === null || value === undefined) return header === 'n' || header === 'windows' ? 'no data' : '–';
+        if (value === null || value === undefined)
+          return header === 'n' || header === 'windows' ? 'no data' : '–';
         if (rates.has(header)) return percent(value as number);
         if (header === 'perArea') return (value as number).toFixed(3);
         if (header === 'ratio') return `${(value as number).toFixed(2)} ×`;

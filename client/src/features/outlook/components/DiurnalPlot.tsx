@@ -18,7 +18,9 @@ export function DiurnalPlot({ outlook, block }: { outlook: OutlookResponse; bloc
   const peak = block.peakBin === null ? null : outlook.bins[block.peakBin];
   const summary = block.hasData
     ? `Chance of a storm starting in ${block.name} per ${outlook.binHours}-hour bin, local time. ` +
-      outlook.bins.map((b) => `${b.label}: ${percent(block.bins[b.index].rate)} (n ${block.bins[b.index].n})`).join('; ') +
+      outlook.bins
+        .map((b) => `${b.label}: ${percent(block.bins[b.index].rate)} (n ${block.bins[b.index].n})`)
+        .join('; ') +
       (peak ? `. Peak ${peak.label}.` : '.')
     : `${block.name} has no data: too little of it lies inside the radar coverage.`;
   return (
@@ -38,14 +40,22 @@ export function DiurnalPlot({ outlook, block }: { outlook: OutlookResponse; bloc
         return (
           <g key={bin.index}>
             {f.rate !== null ? (
-              <rect className="plot__bar" x={left} y={y(f.rate)} width={x.bandwidth()} height={Math.max(0, h - y(f.rate))}>
+              <rect
+                className="plot__bar outlook-bar"
+                x={left}
+                y={y(f.rate)}
+                width={x.bandwidth()}
+                height={Math.max(0, h - y(f.rate))}
+              >
                 <title>{`${bin.label}: ${percent(f.rate)}, ${f.x} of ${f.n} days`}</title>
               </rect>
             ) : null}
             {f.lower !== null && f.upper !== null ? (
               <line className="plot__whisker" x1={mid} x2={mid} y1={y(f.lower)} y2={y(f.upper)} />
             ) : null}
-            {f.shrunk !== null ? <circle className="plot__dot" cx={mid} cy={y(f.shrunk)} r={3.5} /> : null}
+            {f.shrunk !== null ? (
+              <circle className="outlook-shrunk-dot" cx={mid} cy={y(f.shrunk)} r={3.5} />
+            ) : null}
             <text className="plot__tick" x={mid} y={h + 17} textAnchor="middle">
               {outlook.bins.length > 12 ? (bin.index % 3 === 0 ? bin.fromHour : '') : bin.label}
             </text>

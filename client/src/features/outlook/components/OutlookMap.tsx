@@ -7,7 +7,13 @@ import { chanceClasses, chanceColour, describeFigure, mapValue, NO_DATA_FILL } f
 const HATCH = 'outlook-no-data-hatch';
 
 /** The afternoon chance per block (shrunk estimate), "no data" hatched grey; each block focusable with a readout. */
-export function OutlookMap({ outlook, outlines }: { outlook: OutlookResponse; outlines: BlockFeatureCollection }) {
+export function OutlookMap({
+  outlook,
+  outlines,
+}: {
+  outlook: OutlookResponse;
+  outlines: BlockFeatureCollection;
+}) {
   const byId = useMemo(() => new Map(outlook.blocks.map((b) => [b.blockId, b])), [outlook.blocks]);
   const top = useMemo(() => {
     const values = outlook.blocks.map(mapValue).filter((v): v is number => v !== null);
@@ -43,7 +49,13 @@ export function OutlookMap({ outlook, outlines }: { outlook: OutlookResponse; ou
         height={420}
         overlay={() => (
           <defs>
-            <pattern id={HATCH} width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+            <pattern
+              id={HATCH}
+              width="6"
+              height="6"
+              patternUnits="userSpaceOnUse"
+              patternTransform="rotate(45)"
+            >
               <rect width="6" height="6" fill={NO_DATA_FILL} />
               <line x1="0" y1="0" x2="0" y2="6" stroke="#8d8d8d" strokeWidth="2" />
             </pattern>

@@ -28,7 +28,8 @@ function sortCells(a: CellValue, b: CellValue, { sortDirection }: { sortDirectio
   };
   const ka = key(a);
   const kb = key(b);
-  const order = typeof ka === 'number' && typeof kb === 'number' ? ka - kb : String(ka).localeCompare(String(kb));
+  const order =
+    typeof ka === 'number' && typeof kb === 'number' ? ka - kb : String(ka).localeCompare(String(kb));
   return sortDirection === 'DESC' ? -order : order;
 }
 
@@ -83,7 +84,14 @@ export function OutlookTable({
 
   return (
     <DataTable rows={rows} headers={headers} isSortable sortRow={sortCells as never}>
-      {({ rows: sorted, headers: shown, getTableProps, getHeaderProps, getRowProps, getTableContainerProps }) => (
+      {({
+        rows: sorted,
+        headers: shown,
+        getTableProps,
+        getHeaderProps,
+        getRowProps,
+        getTableContainerProps,
+      }) => (
         <TableContainer
           title="Chance of a storm starting, by block and local time"
           description={`Raw rate x/n with n, the days counted. * marks fewer than ${SMALL_N} days. Sort by any column.`}
@@ -135,11 +143,19 @@ export function OutlookTable({
                 const { key, ...rowProps } = getRowProps({ row });
                 const id = Number(row.id);
                 return (
-                  <TableRow key={key} {...rowProps} className={id === selectedBlock ? 'outlook-row--selected' : undefined}>
+                  <TableRow
+                    key={key}
+                    {...rowProps}
+                    className={id === selectedBlock ? 'outlook-row--selected' : undefined}
+                  >
                     {row.cells.map((cell) => (
                       <TableCell key={cell.id}>
                         {cell.info.header === 'block' ? (
-                          <button type="button" className="outlook-block-link" onClick={() => onSelectBlock(id)}>
+                          <button
+                            type="button"
+                            className="outlook-block-link"
+                            onClick={() => onSelectBlock(id)}
+                          >
                             {cell.value as string}
                           </button>
                         ) : typeof cell.value === 'object' && cell.value !== null ? (
