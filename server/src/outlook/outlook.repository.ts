@@ -106,11 +106,11 @@ export class OutlookRepository {
   async scanTimes(siteId: number, sources: string[], r: TimeRange): Promise<Float64Array> {
     const t = range(r, 'time', 3);
     const res = await this.handle.pg.query<{ t: Uint8Array | null }>(
-      `select string_agg(float8send((extract(epoch from time) * 1000)::float8), ''::bytea) as t from scans
+      `select string_agg(float8send(date_part('epoch', time) * 1000), ''::bytea) as t from scans
        where site_id = $1 and source = any($2::text[])${t.sql}`,
       [siteId, sources, ...t.params],
     );
-    const times = unpackFloat64(res.rows[0]?.t ?? null).sort();
+    const times = wholeMs(unpackFloat64(res.rows[0]?.t ?? null)).sort();
     let kept = 0;
     for (let i = 0; i < times.length; i++)
       if (i === 0 || times[i] !== times[kept - 1]) times[kept++] = times[i];
@@ -124,7 +124,7 @@ export class OutlookRepository {
    */
   private async packedColumns(fromWhere: string, [time, block, a, b]: string[], params: unknown[]) {
     const res = await this.handle.pg.query<Record<'t' | 'k' | 'a' | 'b', Uint8Array | null>>(
-      `select string_agg(float8send((extract(epoch from ${time}) * 1000)::float8), ''::bytea) as t,
+      `select string_agg(float8send(date_part('epoch', ${time}) * 1000), ''::bytea) as t,
               string_agg(int4send(coalesce(${block}, -1)), ''::bytea) as k,
               string_agg(float8send(${a}), ''::bytea) as a,
               string_agg(float8send(${b}), ''::bytea) as b
@@ -133,12 +133,18 @@ export class OutlookRepository {
     );
     const row = res.rows[0];
     return {
-      time: unpackFloat64(row?.t ?? null),
+      time: wholeMs(unpackFloat64(row?.t ?? null)),
       blockId: unpackInt32(row?.k ?? null),
       a: unpackFloat64(row?.a ?? null),
       b: unpackFloat64(row?.b ?? null),
     };
   }
+}
+
+/** date_part gives seconds as a double; round the milliseconds so equal instants compare equal. */
+function wholeMs(times: Float64Array): Float64Array {
+  for (let i = 0; i < times.length; i++) times[i] = Math.round(times[i]);
+  return times;
 }
 
 /** PostgreSQL's binary send format is big-endian. */

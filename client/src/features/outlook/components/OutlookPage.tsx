@@ -191,8 +191,11 @@ function download(name: string, text: string) {
   const a = document.createElement('a');
   a.href = url;
   a.download = name;
+  document.body.append(a);
   a.click();
-  URL.revokeObjectURL(url);
+  a.remove();
+  // Revoked later: revoking at once can cancel the download in some browsers.
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
 }
 
 function OutlookBody({ outlook, params }: { outlook: OutlookResponse; params: OutlookParams }) {
