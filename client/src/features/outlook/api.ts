@@ -18,6 +18,8 @@ export interface OutlookParams {
   to: string | null;
   binHours: number;
   measure: OutlookMeasure;
+  /** Count events within this many km of a block's boundary too. */
+  radiusKm: number;
   interval: IntervalMethod;
   afternoonFrom: number;
   afternoonTo: number;
@@ -36,6 +38,7 @@ const query = (p: OutlookParams) => ({
   to: p.to,
   binHours: p.binHours,
   measure: p.measure,
+  radiusKm: p.radiusKm,
   interval: p.interval,
   afternoonFrom: p.afternoonFrom,
   afternoonTo: p.afternoonTo,

@@ -95,6 +95,15 @@ function Controls({
         <SelectItem value="onsets" text="Storms starting (onsets)" />
         <SelectItem value="presence" text="Any storm cell over the block" />
       </Select>
+      <NumberInput
+        id="outlook-radius"
+        label="Neighbourhood (km)"
+        helperText="Also count storms this close to a block"
+        min={0}
+        max={50}
+        value={Number(get('r', '0'))}
+        onChange={(_e, { value }) => onChange({ r: String(value) })}
+      />
       <Select
         id="outlook-interval"
         labelText="Interval"
@@ -228,6 +237,7 @@ function OutlookBody({ outlook, params }: { outlook: OutlookResponse; params: Ou
         {outlook.measure === 'onsets' ? 'storm onsets' : 'storm cells over the block'} from the{' '}
         {outlook.source ?? 'no'} source
         {outlook.sources.length > 1 ? ` (of ${outlook.sources.map((s) => s.source).join(', ')})` : ''};{' '}
+        {outlook.radiusKm > 0 ? `storms within ${outlook.radiusKm} km of a block count for it; ` : ''}
         {outlook.interval === 'jeffreys' ? 'Jeffreys' : 'Wilson'} 90 % intervals.
       </p>
       <div className="outlook-actions">
@@ -308,6 +318,7 @@ export default function OutlookPage() {
           to: search.get('to') || null,
           binHours: Number(search.get('bins') || 3),
           measure: search.get('measure') === 'presence' ? 'presence' : 'onsets',
+          radiusKm: Number(search.get('r') || 0),
           interval: search.get('interval') === 'wilson' ? 'wilson' : 'jeffreys',
           afternoonFrom: Number(search.get('af') || 12),
           afternoonTo: Number(search.get('at') || 18),
