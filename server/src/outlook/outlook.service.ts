@@ -55,6 +55,7 @@ export class OutlookService {
   private readonly loads = new Map<string, { version: string; data: Promise<Loaded> }>();
   /** Fingerprints per site, valid while nothing has been written since they were read. */
   private fingerprints = { mark: '', bySite: new Map<number, string | null>() };
+  private readonly sourceCounts = new Map<string, { version: string; counts: Promise<SourceCount[]> }>();
   private readonly regimeDays = new Map<string, { version: string; days: Promise<RegimeList> }>();
 
   constructor(
@@ -103,7 +104,7 @@ export class OutlookService {
       from: q.from ? localMidnightUtc(dayOfDate(q.from), offset) : null,
       to: q.to ? localMidnightUtc(dayOfDate(q.to) + 1, offset) : null,
     };
-    const sources = await this.repo.onsetsBySource(q.siteId, range);
+    const sources = await this.onsetsBySource(q.siteId, range, version);
     const source = (q.source ?? sources[0]?.source ?? 'cell-table') as OutlookSource;
     const data = await this.load(q, source, range, version);
 
@@ -213,6 +214,19 @@ export class OutlookService {
     };
   }
 
+  /** Onsets per stored source in the period, counted once per data version. */
+  private onsetsBySource(siteId: number, range: TimeRange, version: string): Promise<SourceCount[]> {
+    const key = `${siteId}|${range.from}|${range.to}`;
+    const hit = this.sourceCounts.get(key);
+    if (hit && hit.version === version) return hit.counts;
+    const counts = this.repo.onsetsBySource(siteId, range);
+    this.sourceCounts.set(key, { version, counts });
+    counts.catch(() => this.sourceCounts.delete(key));
+    while (this.sourceCounts.size > MAX_LOADS)
+      this.sourceCounts.delete(this.sourceCounts.keys().next().value as string);
+    return counts;
+  }
+
   /** The regime of each day of the period, classified once per data version (all regimes at once). */
   private regimesOf(siteId: number, from: string, to: string, version: string): Promise<RegimeList> {
     const key = `${siteId}|${from}|${to}`;
@@ -274,6 +288,8 @@ export class OutlookService {
     return { scanTimes, events, eventBlocks, blocks };
   }
 }
+
+type SourceCount = { source: string; onsets: number };
 
 interface RegimeList {
   days: { date: string; regime: string | null }[];
