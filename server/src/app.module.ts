@@ -15,6 +15,7 @@ import { HealthModule } from './health/health.module.js';
 import { IntakeModule } from './intake/intake.module.js';
 import { JobsModule } from './jobs/jobs.module.js';
 import { MailModule } from './mail/mail.module.js';
+import { OutlookModule } from './outlook/outlook.module.js';
 import { RadarModule } from './radar/radar.module.js';
 import { RegimesModule } from './regimes/regimes.module.js';
 import { RegionsModule } from './regions/regions.module.js';
@@ -48,6 +49,7 @@ export class AppModule implements NestModule {
         IntakeModule,
         MailModule,
         AdviceModule,
+        OutlookModule,
         DemoModule,
         ...staticClient,
       ],

@@ -8,6 +8,7 @@ export * from './bulletins.js';
 export * from './errors.js';
 export * from './intake.js';
 export * from './mail.js';
+export * from './outlook.js';
 export * from './radar.js';
 export * from './regimes.js';
 export * from './regions.js';

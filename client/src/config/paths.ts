@@ -92,4 +92,6 @@ export const api = {
   cropCalendarsImport: '/api/crop-calendars/import',
   adviceRules: '/api/advice-rules',
   adviceRule: (id: number) => `/api/advice-rules/${id}`,
+  outlook: '/api/outlook',
+  outlookCsv: '/api/outlook.csv',
 } as const;

@@ -98,16 +98,30 @@ export async function request<T>(path: string, options: RequestOptions = {}): Pr
   return (text ? JSON.parse(text) : undefined) as T;
 }
 
-/** Fetches a file the API serves (downloads need the session header, so a plain link will not do). */
-export async function requestBlob(path: string): Promise<Blob> {
+/** A GET with the same session handling as request(), answering the raw response. */
+async function getRaw(path: string): Promise<Response> {
   let res = await send(path, {});
   if (res.status === 401) {
     const renewed = await refreshSession();
     if (renewed) res = await send(path, {});
     if (res.status === 401) handlers.onLost();
   }
+  return res;
+}
+
+/** Fetches a file the API serves (downloads need the session header, so a plain link will not do). */
+export async function requestBlob(path: string): Promise<Blob> {
+  const res = await getRaw(path);
   if (!res.ok) throw apiErrorFrom(res.status, await res.text());
   return res.blob();
+}
+
+/** Calls the API for a text answer (a CSV export). */
+export async function requestText(path: string): Promise<string> {
+  const res = await getRaw(path);
+  const text = await res.text();
+  if (!res.ok) throw apiErrorFrom(res.status, text);
+  return text;
 }
 
 /** Hands a fetched file to the browser to save under the given name. */

@@ -57,6 +57,8 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'GET /api/advice-rules': ['scientist', 'writer'],
   'POST /api/advice-rules': ['scientist'],
   'PUT /api/advice-rules/:id': ['scientist'],
+  'GET /api/outlook': ['scientist', 'writer'],
+  'GET /api/outlook.csv': ['scientist', 'writer'],
 };
 
 interface ExpressLayer {

@@ -1,0 +1,27 @@
+/** Local days and hours of a site (local time = UTC + offset, whole minutes, e.g. +05:45 = 345). */
+export const DAY_MS = 86_400_000;
+export const HOUR_MS = 3_600_000;
+
+/** Days since 1970-01-01 of the local date t falls on. */
+export function localDay(t: number, utcOffsetMinutes: number): number {
+  return Math.floor((t + utcOffsetMinutes * 60_000) / DAY_MS);
+}
+
+/** The local hour of the day, 0–23. */
+export function localHour(t: number, utcOffsetMinutes: number): number {
+  const local = t + utcOffsetMinutes * 60_000;
+  return Math.floor((local - Math.floor(local / DAY_MS) * DAY_MS) / HOUR_MS);
+}
+
+export function dayOfDate(date: string): number {
+  return Date.parse(`${date}T00:00:00Z`) / DAY_MS;
+}
+
+export function dateOfDay(day: number): string {
+  return new Date(day * DAY_MS).toISOString().slice(0, 10);
+}
+
+/** The UTC instant local midnight of that day begins. */
+export function localMidnightUtc(day: number, utcOffsetMinutes: number): number {
+  return day * DAY_MS - utcOffsetMinutes * 60_000;
+}

@@ -1,0 +1,240 @@
+import type { IntervalMethod, OutlookFigure, OutlookWeek } from '@stormhour/shared';
+import { binomialInterval } from './intervals.js';
+import { DAY_MS, HOUR_MS } from './local-time.js';
+import type { EventBlocks } from './neighbourhood.js';
+import { type BetaPrior, fitBetaPrior, shrunkRate } from './shrinkage.js';
+import { weekWindows } from './weekly.js';
+
+export interface OutlookBlockInput {
+  /** Share of the block inside coverage, 0–1. */
+  coverage: number;
+  /** The area onsets are counted over (the block, or the block buffered by the radius), km². */
+  countingAreaKm2: number;
+}
+
+export interface OutlookInput {
+  blocks: OutlookBlockInput[];
+  /** Event times (onset or cell scan, UTC ms) and the blocks each counts for. */
+  eventTimes: Float64Array;
+  eventBlocks: EventBlocks;
+  /** The scans the counted source could have seen (UTC ms); availability is their share of those expected. */
+  scanTimes: Float64Array;
+  /** Local day numbers (days since 1970-01-01) of the days asked about, ascending. */
+  days: Int32Array;
+  utcOffsetMinutes: number;
+  intervalMin: number;
+  binHours: number;
+  afternoon: { fromHour: number; toHour: number };
+  minAvailability: number;
+  minBlockCoverage: number;
+  interval: IntervalMethod;
+  level: number;
+  /** False when only rates are wanted (the all-days climatology beside a regime): no intervals. */
+  withIntervals?: boolean;
+}
+
+export interface BlockResult {
+  hasData: boolean;
+  bins: OutlookFigure[];
+  afternoon: OutlookFigure;
+  week: OutlookWeek;
+  peakBin: number | null;
+}
+
+export interface OutlookResult {
+  blocks: BlockResult[];
+  priors: { bins: BetaPrior[]; afternoon: BetaPrior };
+}
+
+const NO_DATA: OutlookFigure = {
+  n: null,
+  x: null,
+  rate: null,
+  lower: null,
+  upper: null,
+  shrunk: null,
+  per100Km2: null,
+};
+
+const hourMask = (from: number, to: number) => {
+  let m = 0;
+  for (let h = from; h < to; h++) m |= 1 << h;
+  return m >>> 0;
+};
+
+/**
+ * Counts, for every block and local time-of-day bin, the days counted (n: days asked about whose
+ * availability in the bin reaches the threshold, for blocks covered enough; otherwise null, never 0)
+ * and the days among them with at least one event in the block (x); then rates, intervals, the
+ * shrunk estimates, the afternoon and weekly figures and the peak bin (DESIGN §3.3, §3.5).
+ * Everything is counted in one pass over typed arrays.
+ */
+export function computeOutlook(input: OutlookInput): OutlookResult {
+  const { days, binHours, interval, level } = input;
+  const bins = 24 / binHours;
+  const blocks = input.blocks.length;
+  const dayCount = days.length;
+  const offsetMs = input.utcOffsetMinutes * 60_000;
+  const firstDay = dayCount ? days[0] : 0;
+  const span = dayCount ? days[dayCount - 1] - firstDay + 1 : 0;
+  const position = new Int32Array(span).fill(-1);
+  for (let p = 0; p < dayCount; p++) position[days[p] - firstDay] = p;
+  // Day position (−1 outside the days asked about) and local hour of an instant, without allocating:
+  // this runs for every scan and event of the period.
+  let hourOf = 0;
+  const positionOf = (t: number): number => {
+    const local = t + offsetMs;
+    const day = Math.floor(local / DAY_MS);
+    const i = day - firstDay;
+    if (i < 0 || i >= span) return -1;
+    hourOf = Math.floor((local - day * DAY_MS) / HOUR_MS);
+    return position[i];
+  };
+
+  // Availability: scans present per local day and hour, against those expected.
+  const scansByHour = new Uint16Array(dayCount * 24);
+  for (let s = 0; s < input.scanTimes.length; s++) {
+    const p = positionOf(input.scanTimes[s]);
+    if (p >= 0) scansByHour[p * 24 + hourOf]++;
+  }
+  const perHour = 60 / input.intervalMin;
+  const available = (p: number, from: number, to: number) => {
+    let present = 0;
+    for (let h = from; h < to; h++) present += scansByHour[p * 24 + h];
+    return Math.min(1, present / ((to - from) * perHour)) >= input.minAvailability;
+  };
+  const binCounted = new Uint8Array(dayCount * bins);
+  const daysPerBin = new Int32Array(bins);
+  const afternoonCounted = new Uint8Array(dayCount);
+  let afternoonDays = 0;
+  const { fromHour, toHour } = input.afternoon;
+  for (let p = 0; p < dayCount; p++) {
+    for (let k = 0; k < bins; k++)
+      if (available(p, k * binHours, (k + 1) * binHours)) {
+        binCounted[p * bins + k] = 1;
+        daysPerBin[k]++;
+      }
+    if (available(p, fromHour, toHour)) {
+      afternoonCounted[p] = 1;
+      afternoonDays++;
+    }
+  }
+
+  // Events: which hours of which day saw one in each block, and how many on counted days.
+  const seen = new Uint32Array(blocks * dayCount);
+  const eventsPerBin = new Float64Array(blocks * bins);
+  const eventsAfternoon = new Float64Array(blocks);
+  const { offsets, blockIndex } = input.eventBlocks;
+  for (let e = 0; e < input.eventTimes.length; e++) {
+    const p = positionOf(input.eventTimes[e]);
+    if (p < 0) continue;
+    const h = hourOf;
+    const k = Math.floor(h / binHours);
+    const inBin = binCounted[p * bins + k] === 1;
+    const inAfternoon = h >= fromHour && h < toHour && afternoonCounted[p] === 1;
+    for (let j = offsets[e]; j < offsets[e + 1]; j++) {
+      const b = blockIndex[j];
+      seen[b * dayCount + p] |= 1 << h;
+      if (inBin) eventsPerBin[b * bins + k]++;
+      if (inAfternoon) eventsAfternoon[b]++;
+    }
+  }
+  const binMasks = Array.from({ length: bins }, (_, k) => hourMask(k * binHours, (k + 1) * binHours));
+  const afternoonMask = hourMask(fromHour, toHour);
+
+  const hasData = input.blocks.map((b) => b.coverage >= input.minBlockCoverage);
+  const x = new Float64Array(blocks * bins);
+  const n = new Float64Array(blocks * bins);
+  const xAfternoon = new Float64Array(blocks);
+  const nAfternoon = new Float64Array(blocks);
+  const weeks: OutlookWeek[] = [];
+  const hits = new Uint8Array(afternoonDays);
+  for (let b = 0; b < blocks; b++) {
+    if (!hasData[b]) {
+      weeks.push({ windows: 0, hits: 0, rate: null, lower: null, upper: null });
+      continue;
+    }
+    for (let k = 0; k < bins; k++) n[b * bins + k] = daysPerBin[k];
+    nAfternoon[b] = afternoonDays;
+    let c = 0;
+    for (let p = 0; p < dayCount; p++) {
+      const mask = seen[b * dayCount + p];
+      if (mask !== 0)
+        for (let k = 0; k < bins; k++) if (mask & binMasks[k] && binCounted[p * bins + k]) x[b * bins + k]++;
+      if (afternoonCounted[p]) {
+        const hit = mask & afternoonMask ? 1 : 0;
+        hits[c++] = hit;
+        xAfternoon[b] += hit;
+      }
+    }
+    weeks.push(weekFigure(hits, interval, level));
+  }
+
+  const binPriors: BetaPrior[] = [];
+  const column = (k: number, of: Float64Array) => {
+    const out = new Float64Array(blocks);
+    for (let b = 0; b < blocks; b++) out[b] = of[b * bins + k];
+    return out;
+  };
+  for (let k = 0; k < bins; k++) binPriors.push(fitBetaPrior(column(k, x), column(k, n)));
+  const afternoonPrior = fitBetaPrior(xAfternoon, nAfternoon);
+
+  const figure = (xb: number, nb: number, events: number, area: number, prior: BetaPrior): OutlookFigure => {
+    const ci = input.withIntervals === false ? null : binomialInterval(interval, xb, nb, level);
+    return {
+      n: nb,
+      x: xb,
+      rate: nb > 0 ? xb / nb : null,
+      lower: ci?.lower ?? null,
+      upper: ci?.upper ?? null,
+      shrunk: shrunkRate(xb, nb, prior),
+      per100Km2: nb > 0 && area > 0 ? events / nb / (area / 100) : null,
+    };
+  };
+
+  const results: BlockResult[] = input.blocks.map((block, b) => {
+    if (!hasData[b])
+      return {
+        hasData: false,
+        bins: Array(bins).fill(NO_DATA),
+        afternoon: NO_DATA,
+        week: weeks[b],
+        peakBin: null,
+      };
+    const figures = binPriors.map((prior, k) =>
+      figure(x[b * bins + k], n[b * bins + k], eventsPerBin[b * bins + k], block.countingAreaKm2, prior),
+    );
+    let peakBin: number | null = null;
+    figures.forEach((f, k) => {
+      if (f.shrunk !== null && (peakBin === null || f.shrunk > (figures[peakBin].shrunk as number)))
+        peakBin = k;
+    });
+    return {
+      hasData: true,
+      bins: figures,
+      afternoon: figure(
+        xAfternoon[b],
+        nAfternoon[b],
+        eventsAfternoon[b],
+        block.countingAreaKm2,
+        afternoonPrior,
+      ),
+      week: weeks[b],
+      peakBin,
+    };
+  });
+  return { blocks: results, priors: { bins: binPriors, afternoon: afternoonPrior } };
+}
+
+/**
+ * Windows overlap, so they are not independent trials: the interval is drawn as if from the
+ * ⌊days / 7⌋ separate weeks the record holds, at the windows' hit rate (rounded to whole weeks).
+ */
+function weekFigure(hitByDay: Uint8Array, method: IntervalMethod, level: number): OutlookWeek {
+  const { windows, hits } = weekWindows(hitByDay);
+  if (windows === 0) return { windows, hits, rate: null, lower: null, upper: null };
+  const rate = hits / windows;
+  const weeks = Math.floor(hitByDay.length / 7);
+  const ci = binomialInterval(method, Math.round(rate * weeks), weeks, level);
+  return { windows, hits, rate, lower: ci?.lower ?? null, upper: ci?.upper ?? null };
+}

@@ -1,0 +1,344 @@
+import { createHash } from 'node:crypto';
+import { gzipSync } from 'node:zlib';
+import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
+import {
+  ALL_DAYS,
+  OUTLOOK_LEVEL,
+  type OutlookBlock,
+  type OutlookQuery,
+  type OutlookResponse,
+  type OutlookSource,
+} from '@stormhour/shared';
+import { sitePlane } from '../radar/engine/site-plane.js';
+import { SitesService } from '../radar/sites.service.js';
+import { RegimesService } from '../regimes/regimes.service.js';
+import { RegionsRepository } from '../regions/regions.repository.js';
+import { areaAndPerimeter, bufferedAreaKm2, coverageFraction, toPlane } from './engine/block-coverage.js';
+import { dateOfDay, dayOfDate, localDay, localMidnightUtc } from './engine/local-time.js';
+import { blocksWithin, ownBlock } from './engine/neighbourhood.js';
+import { computeOutlook, type OutlookResult } from './engine/outlook.js';
+import { type EventColumns, OutlookRepository, type TimeRange } from './outlook.repository.js';
+import { outlookCsv } from './outlook-csv.js';
+
+/** A computed outlook, kept serialised so a cached answer costs no work but the version check. */
+export interface OutlookAnswer {
+  body: OutlookResponse;
+  json: Buffer;
+  gzip: Buffer;
+  etag: string;
+  csv(): string;
+}
+
+interface Entry {
+  version: string;
+  answer: Promise<OutlookAnswer>;
+}
+
+/** Outlooks kept in memory; each is a few hundred kB. */
+const MAX_ANSWERS = 48;
+/** Loaded columns (events and scans of a site, source and period) reused across regimes and bins. */
+const MAX_LOADS = 6;
+
+const round = (v: number | null) => (v === null ? null : Math.round(v * 1e6) / 1e6);
+
+/**
+ * The block outlook (DESIGN §3.5). Answers are cached in memory by their inputs and checked, on every
+ * request, against a fingerprint of the data they were made from (OutlookRepository.dataVersion): new
+ * tracks, cells, scans, anomaly fields, finished jobs, settings, blocks or site changes give a new
+ * fingerprint and the next request computes afresh. The fingerprint itself is read again only after
+ * some transaction has written (the write mark moved), so a cached answer costs one trivial query;
+ * no other module needs to remember to invalidate anything.
+ */
+@Injectable()
+export class OutlookService {
+  private readonly answers = new Map<string, Entry>();
+  private readonly loads = new Map<string, { version: string; data: Promise<Loaded> }>();
+  /** Fingerprints per site, valid while nothing has been written since they were read. */
+  private fingerprints = { mark: '', bySite: new Map<number, string | null>() };
+  private readonly sourceCounts = new Map<string, { version: string; counts: Promise<SourceCount[]> }>();
+  private readonly regimeDays = new Map<string, { version: string; days: Promise<RegimeList> }>();
+
+  constructor(
+    private readonly repo: OutlookRepository,
+    private readonly sites: SitesService,
+    private readonly regimes: RegimesService,
+    private readonly regions: RegionsRepository,
+  ) {}
+
+  async outlook(q: OutlookQuery): Promise<OutlookAnswer> {
+    const version = await this.fingerprint(q.siteId);
+    if (version === null) throw new NotFoundException(`There is no radar site with id ${q.siteId}.`);
+    const key = JSON.stringify(q, Object.keys(q).sort());
+    const hit = this.answers.get(key);
+    if (hit && hit.version === version) {
+      // Most recently used last, so the oldest is evicted first.
+      this.answers.delete(key);
+      this.answers.set(key, hit);
+      return hit.answer;
+    }
+    const answer = this.compute(q, version).then(serialise);
+    this.answers.set(key, { version, answer });
+    answer.catch(() => this.answers.delete(key));
+    while (this.answers.size > MAX_ANSWERS) this.answers.delete(this.answers.keys().next().value as string);
+    return answer;
+  }
+
+  /**
+   * The site's data fingerprint. While no transaction has written anything since it was read (the
+   * database's write mark is unchanged), it cannot have changed and is not read again.
+   */
+  private async fingerprint(siteId: number): Promise<string | null> {
+    const mark = await this.repo.writeMark();
+    if (mark !== this.fingerprints.mark) this.fingerprints = { mark, bySite: new Map() };
+    const known = this.fingerprints.bySite.get(siteId);
+    if (known !== undefined) return known;
+    const version = await this.repo.dataVersion(siteId);
+    this.fingerprints.bySite.set(siteId, version);
+    return version;
+  }
+
+  private async compute(q: OutlookQuery, version: string): Promise<OutlookResponse> {
+    const site = await this.sites.get(q.siteId);
+    const offset = site.utcOffsetMinutes;
+    const range: TimeRange = {
+      from: q.from ? localMidnightUtc(dayOfDate(q.from), offset) : null,
+      to: q.to ? localMidnightUtc(dayOfDate(q.to) + 1, offset) : null,
+    };
+    const sources = await this.onsetsBySource(q.siteId, range, version);
+    const source = (q.source ?? sources[0]?.source ?? 'cell-table') as OutlookSource;
+    const data = await this.load(q, source, range, version);
+
+    // The period: as asked, or from the first to the last scan the source could have seen.
+    const scans = data.scanTimes;
+    const firstDay = q.from ? dayOfDate(q.from) : scans.length ? localDay(scans[0], offset) : null;
+    const lastDay = q.to ? dayOfDate(q.to) : scans.length ? localDay(scans[scans.length - 1], offset) : null;
+    const allDays: number[] = [];
+    if (firstDay !== null && lastDay !== null) for (let d = firstDay; d <= lastDay; d++) allDays.push(d);
+    const from = firstDay === null ? null : dateOfDay(firstDay);
+    const to = lastDay === null ? null : dateOfDay(lastDay);
+
+    const regimes = from && to ? await this.regimesOf(q.siteId, from, to, version) : { days: [], counts: [] };
+    let selected = allDays;
+    if (q.regime !== ALL_DAYS) {
+      const dates = new Set(regimes.days.filter((d) => d.regime === q.regime).map((d) => d.date));
+      selected = allDays.filter((d) => dates.has(dateOfDay(d)));
+      if (selected.length === 0) {
+        throw new BadRequestException({
+          message: `No day of the period ${from ?? '…'} to ${to ?? '…'} has the regime "${q.regime}": pick one of those listed, or all days.`,
+          details: [{ where: 'regime', problem: 'no days of this regime in the period' }],
+        });
+      }
+    }
+
+    const settings = site.settings;
+    const common = {
+      blocks: data.blocks.map((b) => ({ coverage: b.coverage, countingAreaKm2: b.countingAreaKm2 })),
+      eventTimes: data.events.time,
+      eventBlocks: data.eventBlocks,
+      scanTimes: scans,
+      utcOffsetMinutes: offset,
+      intervalMin: site.intervalMin,
+      binHours: q.binHours,
+      afternoon: { fromHour: q.afternoonFrom, toHour: q.afternoonTo },
+      minAvailability: settings.minAvailability,
+      minBlockCoverage: settings.minBlockCoverage,
+      interval: q.interval,
+      level: OUTLOOK_LEVEL,
+    };
+    const result = computeOutlook({ ...common, days: Int32Array.from(selected) });
+    const climatology: OutlookResult =
+      q.regime === ALL_DAYS
+        ? result
+        : computeOutlook({ ...common, days: Int32Array.from(allDays), withIntervals: false });
+
+    const bins = Array.from({ length: 24 / q.binHours }, (_, index) => {
+      const fromHour = index * q.binHours;
+      const toHour = fromHour + q.binHours;
+      return { index, fromHour, toHour, label: `${pad(fromHour)}–${pad(toHour)}` };
+    });
+    const blocks: OutlookBlock[] = data.blocks.map((b, i) => {
+      const r = result.blocks[i];
+      const climate = climatology.blocks[i].afternoon.rate;
+      const rate = r.afternoon.rate;
+      return {
+        blockId: b.id,
+        code: b.code,
+        name: b.name,
+        districtId: b.districtId,
+        districtCode: b.districtCode,
+        districtName: b.districtName,
+        areaKm2: round(b.areaKm2) as number,
+        coverage: round(b.coverage) as number,
+        hasData: r.hasData,
+        bins: r.bins.map(roundFigure),
+        afternoon: roundFigure(r.afternoon),
+        climatologyRate: round(climate),
+        ratioToClimatology: rate !== null && climate ? round(rate / climate) : null,
+        week: { ...r.week, rate: round(r.week.rate), lower: round(r.week.lower), upper: round(r.week.upper) },
+        peakBin: r.peakBin,
+      };
+    });
+    const prior = (p: OutlookResult['priors']['afternoon']) => ({
+      mean: round(p.mean),
+      strength: round(p.strength),
+      alpha: round(p.alpha),
+      beta: round(p.beta),
+    });
+    return {
+      siteId: site.id,
+      siteCode: site.code,
+      utcOffsetMinutes: offset,
+      source,
+      sources,
+      measure: q.measure,
+      regime: q.regime,
+      from,
+      to,
+      binHours: q.binHours,
+      bins,
+      afternoon: { fromHour: q.afternoonFrom, toHour: q.afternoonTo },
+      radiusKm: q.radiusKm,
+      interval: q.interval,
+      level: OUTLOOK_LEVEL,
+      minAvailability: settings.minAvailability,
+      minBlockCoverage: settings.minBlockCoverage,
+      daysInPeriod: allDays.length,
+      regimeDays: selected.length,
+      regimes: regimes.counts,
+      priors: {
+        bins: result.priors.bins.map(prior),
+        afternoon: prior(result.priors.afternoon),
+        method: 'moments',
+      },
+      blocks,
+    };
+  }
+
+  /** Onsets per stored source in the period, counted once per data version. */
+  private onsetsBySource(siteId: number, range: TimeRange, version: string): Promise<SourceCount[]> {
+    const key = `${siteId}|${range.from}|${range.to}`;
+    const hit = this.sourceCounts.get(key);
+    if (hit && hit.version === version) return hit.counts;
+    const counts = this.repo.onsetsBySource(siteId, range);
+    this.sourceCounts.set(key, { version, counts });
+    counts.catch(() => this.sourceCounts.delete(key));
+    while (this.sourceCounts.size > MAX_LOADS)
+      this.sourceCounts.delete(this.sourceCounts.keys().next().value as string);
+    return counts;
+  }
+
+  /** The regime of each day of the period, classified once per data version (all regimes at once). */
+  private regimesOf(siteId: number, from: string, to: string, version: string): Promise<RegimeList> {
+    const key = `${siteId}|${from}|${to}`;
+    const hit = this.regimeDays.get(key);
+    if (hit && hit.version === version) return hit.days;
+    const days = this.regimes.regimes(siteId, from, to).then(({ days, counts }) => ({
+      days: days.map((d) => ({ date: d.date, regime: d.regime })),
+      counts,
+    }));
+    this.regimeDays.set(key, { version, days });
+    days.catch(() => this.regimeDays.delete(key));
+    while (this.regimeDays.size > MAX_LOADS)
+      this.regimeDays.delete(this.regimeDays.keys().next().value as string);
+    return days;
+  }
+
+  /** Events, scans and block geometry for a site, source, measure, radius and period, loaded once. */
+  private load(q: OutlookQuery, source: OutlookSource, range: TimeRange, version: string): Promise<Loaded> {
+    const key = JSON.stringify([q.siteId, source, q.measure, q.radiusKm, range.from, range.to]);
+    const hit = this.loads.get(key);
+    if (hit && hit.version === version) return hit.data;
+    const data = this.loadFresh(q, source, range);
+    this.loads.set(key, { version, data });
+    data.catch(() => this.loads.delete(key));
+    while (this.loads.size > MAX_LOADS) this.loads.delete(this.loads.keys().next().value as string);
+    return data;
+  }
+
+  private async loadFresh(q: OutlookQuery, source: OutlookSource, range: TimeRange): Promise<Loaded> {
+    const site = await this.sites.get(q.siteId);
+    const plane = sitePlane(site);
+    // Starts are judged against the scans a source could have seen (as the onset rules do): a cell
+    // table with the scan inventory, a volume or column-maximum run with its own scans only.
+    const scanSources = source === 'cell-table' ? ['scan-inventory', 'cell-table'] : [source];
+    const [scanTimes, events, stored] = await Promise.all([
+      this.repo.scanTimes(q.siteId, scanSources, range),
+      q.measure === 'onsets'
+        ? this.repo.onsets(q.siteId, source, range)
+        : this.repo.stormCells(q.siteId, source, range),
+      this.regions.listBlocksWithGeometry({}),
+    ]);
+    const indexOf = new Map(stored.map((b, i) => [b.id, i]));
+    const inPlane = stored.map((b) => toPlane(b.geometry, plane));
+    const blocks = stored.map((b, i) => {
+      const { perimeterKm } = areaAndPerimeter(inPlane[i]);
+      return {
+        ...b,
+        coverage: coverageFraction(b.geometry, site, plane),
+        countingAreaKm2: q.radiusKm > 0 ? bufferedAreaKm2(b.areaKm2, perimeterKm, q.radiusKm) : b.areaKm2,
+      };
+    });
+    let eventBlocks: Loaded['eventBlocks'];
+    if (q.radiusKm === 0) {
+      eventBlocks = ownBlock(Int32Array.from(events.blockId, (id) => indexOf.get(id) ?? -1));
+    } else {
+      const [x, y] = q.measure === 'onsets' ? project(events, plane) : [events.a, events.b];
+      eventBlocks = blocksWithin(x, y, inPlane, q.radiusKm);
+    }
+    return { scanTimes, events, eventBlocks, blocks };
+  }
+}
+
+type SourceCount = { source: string; onsets: number };
+
+interface RegimeList {
+  days: { date: string; regime: string | null }[];
+  counts: { regime: string; days: number }[];
+}
+
+interface Loaded {
+  scanTimes: Float64Array;
+  events: EventColumns;
+  eventBlocks: ReturnType<typeof ownBlock>;
+  blocks: (Awaited<ReturnType<RegionsRepository['listBlocksWithGeometry']>>[number] & {
+    coverage: number;
+    countingAreaKm2: number;
+  })[];
+}
+
+/** Onset starts are stored as lon/lat; the neighbourhood is measured in the site plane. */
+function project(events: EventColumns, plane: ReturnType<typeof sitePlane>): [Float64Array, Float64Array] {
+  const x = new Float64Array(events.a.length);
+  const y = new Float64Array(events.a.length);
+  for (let i = 0; i < x.length; i++) [x[i], y[i]] = plane.toKm(events.a[i], events.b[i]);
+  return [x, y];
+}
+
+const pad = (h: number) => String(h).padStart(2, '0');
+
+function roundFigure(f: OutlookResult['blocks'][number]['afternoon']) {
+  return {
+    n: f.n,
+    x: f.x,
+    rate: round(f.rate),
+    lower: round(f.lower),
+    upper: round(f.upper),
+    shrunk: round(f.shrunk),
+    per100Km2: round(f.per100Km2),
+  };
+}
+
+function serialise(body: OutlookResponse): OutlookAnswer {
+  const json = Buffer.from(JSON.stringify(body));
+  let csv: string | undefined;
+  return {
+    body,
+    json,
+    gzip: gzipSync(json, { level: 6 }),
+    etag: `"${createHash('sha1').update(json).digest('base64url')}"`,
+    csv: () => {
+      csv ??= outlookCsv(body);
+      return csv;
+    },
+  };
+}
