@@ -11,6 +11,7 @@ import { join } from 'node:path';
 import { PGlite } from '@electric-sql/pglite';
 import { Test } from '@nestjs/testing';
 import { sitePlane } from '../src/radar/engine/site-plane.js';
+import { testConfig } from '../src/testing/test-app.js';
 
 // The app runs from the compiled server (tsc emits the decorator metadata Nest's injection needs;
 // tsx's transform does not), typed by the sources it was built from.
@@ -81,20 +82,14 @@ const db = wrap(await PGlite.create());
 await migrateDatabase(db);
 const moduleRef = await Test.createTestingModule({
   imports: [
-    AppModule.register({
-      port: 0,
-      dataDir: 'memory://',
-      jwtSecret: 'benchmark-secret-that-is-long-enough-for-hs256',
-      demo: false,
-      demoPassword: 'unused',
-      uploadLimitBytes: 1 << 20,
-      loginAttemptsPerMinute: 100,
-      accessTokenMinutes: 60,
-      refreshDays: 1,
-      clientDist: null,
-      demoDataDir: '',
-      filesDir: join(tmpdir(), `stormhour-bench-outlook-${process.pid}`),
-    }),
+    AppModule.register(
+      testConfig({
+        jwtSecret: 'benchmark-secret-that-is-long-enough-for-hs256',
+        loginAttemptsPerMinute: 100,
+        accessTokenMinutes: 60,
+        filesDir: join(tmpdir(), `stormhour-bench-outlook-${process.pid}`),
+      }),
+    ),
   ],
 })
   .overrideProvider(DATABASE)
