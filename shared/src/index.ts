@@ -1,3 +1,4 @@
+export * from './atlas.js';
 export * from './audit.js';
 export * from './auth.js';
 export * from './errors.js';
