@@ -1,6 +1,7 @@
 import { type DynamicModule, type MiddlewareConsumer, Module, type NestModule } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
 import { ServeStaticModule } from '@nestjs/serve-static';
+import { AtlasModule } from './atlas/atlas.module.js';
 import { AuditModule } from './audit/audit.module.js';
 import { AuthModule } from './auth/auth.module.js';
 import { JwtAuthGuard, RolesGuard } from './common/access.guards.js';
@@ -43,6 +44,7 @@ export class AppModule implements NestModule {
         JobsModule,
         RadarModule,
         RegimesModule,
+        AtlasModule,
         IntakeModule,
         DemoModule,
         ...staticClient,

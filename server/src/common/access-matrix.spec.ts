@@ -41,6 +41,11 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'GET /api/regimes/composite': ['scientist', 'writer'],
   'GET /api/regimes/settings': ['scientist', 'writer'],
   'PUT /api/regimes/settings': ['scientist'],
+  'GET /api/atlas/map': ['scientist'],
+  'GET /api/atlas/diurnal': ['scientist'],
+  'GET /api/atlas/distributions': ['scientist'],
+  'GET /api/atlas/time-distance': ['scientist'],
+  'GET /api/atlas/motion': ['scientist'],
 };
 
 interface ExpressLayer {
