@@ -71,4 +71,11 @@ export const api = {
   regimes: '/api/regimes',
   regimeComposite: '/api/regimes/composite',
   regimeSettings: '/api/regimes/settings',
+  atlas: {
+    map: '/api/atlas/map',
+    diurnal: '/api/atlas/diurnal',
+    distributions: '/api/atlas/distributions',
+    timeDistance: '/api/atlas/time-distance',
+    motion: '/api/atlas/motion',
+  },
 } as const;
