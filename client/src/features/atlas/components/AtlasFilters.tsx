@@ -35,6 +35,7 @@ export function AtlasFilters({
   return (
     <div className="track-filters atlas-filters">
       <Select
+        size="sm"
         id="atlas-site"
         labelText="Radar site"
         value={String(params.siteId)}
@@ -45,6 +46,7 @@ export function AtlasFilters({
         ))}
       </Select>
       <TextInput
+        size="sm"
         id="atlas-from"
         type="date"
         labelText="First day (local)"
@@ -52,6 +54,7 @@ export function AtlasFilters({
         onChange={(e) => onChange({ from: e.target.value })}
       />
       <TextInput
+        size="sm"
         id="atlas-to"
         type="date"
         labelText="Last day (local)"
@@ -59,6 +62,7 @@ export function AtlasFilters({
         onChange={(e) => onChange({ to: e.target.value })}
       />
       <Select
+        size="sm"
         id="atlas-regime"
         labelText="Regime"
         value={params.regime ?? ''}
@@ -73,6 +77,7 @@ export function AtlasFilters({
         ))}
       </Select>
       <Select
+        size="sm"
         id="atlas-district"
         labelText="District"
         value={params.districtId === null ? '' : String(params.districtId)}
@@ -84,6 +89,7 @@ export function AtlasFilters({
         ))}
       </Select>
       <Select
+        size="sm"
         id="atlas-type"
         labelText="Cell type"
         value={params.cellType ?? ''}
@@ -95,6 +101,7 @@ export function AtlasFilters({
         ))}
       </Select>
       <Select
+        size="sm"
         id="atlas-source"
         labelText="Source"
         value={params.source ?? ''}
@@ -106,6 +113,7 @@ export function AtlasFilters({
         ))}
       </Select>
       <Select
+        size="sm"
         id="atlas-bin-hours"
         labelText="Time bins (map)"
         value={String(binHours)}
@@ -116,6 +124,7 @@ export function AtlasFilters({
         ))}
       </Select>
       <Select
+        size="sm"
         id="atlas-bin"
         labelText="Local time (map)"
         value={bin === null ? '' : String(bin)}

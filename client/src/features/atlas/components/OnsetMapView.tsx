@@ -1,5 +1,5 @@
 import { colors } from '@carbon/colors';
-import { Checkbox, InlineLoading, NumberInput } from '@carbon/react';
+import { Checkbox, InlineLoading } from '@carbon/react';
 import type { AtlasMapResponse } from '@stormhour/shared';
 import type { GeoPermissibleObjects } from 'd3-geo';
 import { type ReactNode, useMemo, useRef, useState } from 'react';
@@ -12,6 +12,7 @@ import { useCoverage } from '../../intake/sites/api';
 import { type AxisParams, type MapParams, useAtlasMap } from '../api';
 import { binLabel } from '../atlasParams';
 import { ExportBar } from './ExportBar';
+import { NumberField } from './NumberField';
 import { ScopeLine } from './ScopeLine';
 
 /** Carbon's purple ramp, light to dark, for density bands (sequential; no borrowed colour scheme). */
@@ -189,18 +190,14 @@ export function OnsetMapView({
   return (
     <div className="form-stack">
       <div className="atlas-view-controls">
-        <NumberInput
+        <NumberField
           id="atlas-bandwidth"
           label="Kernel bandwidth (km)"
           min={2}
           max={100}
           step={1}
           value={params.bandwidthKm}
-          onChange={(_e, { value }) => {
-            const km = Number(value);
-            if (Number.isFinite(km) && km >= 2 && km <= 100) onBandwidth(km);
-          }}
-          invalidText="Between 2 and 100 km"
+          onCommit={onBandwidth}
         />
         <Checkbox
           id="atlas-show-bands"

@@ -1,5 +1,5 @@
 import { colors } from '@carbon/colors';
-import { Button, InlineLoading, NumberInput } from '@carbon/react';
+import { Button, InlineLoading } from '@carbon/react';
 import { DEFAULT_AXIS } from '@stormhour/shared';
 import { scaleLinear, scaleQuantize } from 'd3-scale';
 import { useRef, useState } from 'react';
@@ -8,6 +8,7 @@ import { PlotAxes, PlotFigure } from '../../../components/plots/PlotFigure';
 import { innerSize } from '../../../components/plots/plotFrame';
 import { type AxisParams, type TimeDistanceParams, useAtlasTimeDistance } from '../api';
 import { ExportBar } from './ExportBar';
+import { NumberField } from './NumberField';
 import { AtlasBaseMap, AxisOverlay } from './OnsetMapView';
 import { ScopeLine } from './ScopeLine';
 
@@ -86,18 +87,14 @@ function HeatGrid({
 
 function AxisForm({ axis, onAxis }: { axis: AxisParams; onAxis: (a: Partial<AxisParams>) => void }) {
   const field = (id: keyof AxisParams, label: string, min: number, max: number, step: number) => (
-    <NumberInput
+    <NumberField
       id={`atlas-axis-${id}`}
       label={label}
       min={min}
       max={max}
       step={step}
       value={axis[id]}
-      onChange={(_e, { value }) => {
-        const v = Number(value);
-        if (Number.isFinite(v) && v >= min && v <= max) onAxis({ [id]: v });
-      }}
-      invalidText={`Between ${min} and ${max}`}
+      onCommit={(v) => onAxis({ [id]: v })}
     />
   );
   return (

@@ -1,0 +1,69 @@
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { type Browser, baseUrl, openBrowser, signIn, watchOutsideRequests } from './browser.js';
+
+describe('the scientist explores the demo season in the Atlas', () => {
+  let browser: Browser;
+  beforeAll(async () => {
+    browser = await openBrowser();
+    await signIn(browser.page, 'scientist@vessary.example');
+  });
+  afterAll(() => browser.close());
+
+  async function downloaded(button: string, group: string): Promise<{ name: string; text: string }> {
+    const { page } = browser;
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('group', { name: group }).getByRole('button', { name: button }).click(),
+    ]);
+    return { name: download.suggestedFilename(), text: readFileSync(await download.path(), 'utf8') };
+  }
+
+  it('opens the onset map, switches views, changes a filter and exports CSV and SVG', async () => {
+    const { page } = browser;
+    const outside = watchOutsideRequests(page);
+    await page.getByRole('navigation', { name: 'Sections' }).getByRole('link', { name: 'Atlas' }).click();
+    await page.getByRole('heading', { name: 'Atlas' }).waitFor();
+    await page
+      .getByRole('img', { name: 'Onsets and their density, the whole day' })
+      .waitFor({ timeout: 60_000 });
+    await page.getByRole('list', { name: 'Onset density (onsets per 1000 km² per day)' }).waitFor();
+    // The demo season: 3 546 onsets from the cell table (sample-data/README.md).
+    await page.getByText(/3546 onsets on 122 days from the cell table/).waitFor();
+    await page.screenshot({ path: fileURLToPath(new URL('./screenshots/atlas-map.png', import.meta.url)) });
+
+    const csv = await downloaded('CSV', 'Export the onset map');
+    expect(csv.name).toBe('atlas-onset-map.csv');
+    const lines = csv.text.trim().split('\n');
+    expect(lines[0]).toBe('track_id,time_utc,local_hour,lat,lon,block_id,cell_type');
+    expect(lines).toHaveLength(3547);
+
+    await page.getByRole('tab', { name: 'Daily cycle' }).click();
+    await page.getByRole('img', { name: 'Onsets by local hour' }).waitFor();
+    // The generator's afternoon peak, 14–15 h local.
+    await page.getByText(/all cells \(n = 3546, peak 1[3-5]–1[4-6] h\)/).waitFor();
+    await page.getByLabel('Cell type').selectOption('deep');
+    await page.getByText(/onsets on 122 days from the cell table, deep cells\./).waitFor();
+    const svg = await downloaded('SVG', 'Export the daily cycle');
+    expect(svg.name).toBe('atlas-daily-cycle-onsets.svg');
+    expect(svg.text).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
+    expect(svg.text).toContain('<path');
+
+    await page.getByLabel('Cell type').selectOption('');
+    await page.getByRole('tab', { name: 'Motion rose' }).click();
+    await page.getByRole('img', { name: 'Rose of storm motion' }).waitFor();
+    await page.getByText(/most moved toward (NW|NNW|WNW)/).waitFor();
+
+    await page.getByRole('tab', { name: 'Time–distance' }).click();
+    await page.getByRole('img', { name: 'Onsets by local time and distance along the axis' }).waitFor();
+    await page.getByRole('tab', { name: 'Distributions' }).click();
+    await page.getByRole('img', { name: 'Histogram of duration' }).waitFor();
+    await page.getByText(/too lenient \(Lilliefors 1967\)/).waitFor();
+    await page.screenshot({
+      path: fileURLToPath(new URL('./screenshots/atlas-distributions.png', import.meta.url)),
+      fullPage: true,
+    });
+    expect(outside).toEqual([]);
+  }, 180_000);
+});
