@@ -31,7 +31,10 @@ describe('the scientist explores the demo season in the Atlas', () => {
     await page.getByRole('list', { name: 'Onset density (onsets per 1000 km² per day)' }).waitFor();
     // The demo season: 3 546 onsets from the cell table (sample-data/README.md).
     await page.getByText(/3546 onsets on 122 days from the cell table/).waitFor();
-    await page.screenshot({ path: fileURLToPath(new URL('./screenshots/atlas-map.png', import.meta.url)) });
+    await page.screenshot({
+      path: fileURLToPath(new URL('./screenshots/atlas-map.png', import.meta.url)),
+      fullPage: true,
+    });
 
     const csv = await downloaded('CSV', 'Export the onset map');
     expect(csv.name).toBe('atlas-onset-map.csv');

@@ -47,9 +47,8 @@ export default function AtlasPage() {
         Atlas
       </h1>
       <p className="page-lead">
-        Where and when storms start, how big they grow and where they go: the radar record of a site, filtered
-        by period, regime, district and cell type. Each view exports its figure (SVG, PNG) and its numbers
-        (CSV).
+        Where and when storms start, how big they grow and where they go. Every view exports its figure (SVG,
+        PNG) and its numbers (CSV).
       </p>
       {sites.isPending ? <InlineLoading description="Loading the radar sites" /> : null}
       {sites.isError ? (

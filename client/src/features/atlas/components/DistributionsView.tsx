@@ -16,6 +16,12 @@ const HEIGHT = 260;
 const f3 = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 3, minimumFractionDigits: 3 });
 const sig = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 3 });
 
+/** On a log axis d3 offers every integer multiple; past eight labels keep only 1, 2 and 5 × 10ᵏ. */
+export function logTicks(ticks: number[]): number[] {
+  if (ticks.length <= 8) return ticks;
+  return ticks.filter((t) => [1, 2, 5].includes(Number(t.toExponential(0)[0])));
+}
+
 function Histogram({ d }: { d: DistributionSummary }) {
   const { w, h } = innerSize({ width: WIDTH, height: HEIGHT });
   const { edges, counts, expected } = d.histogram;
@@ -39,7 +45,7 @@ function Histogram({ d }: { d: DistributionSummary }) {
       height={HEIGHT}
     >
       <ValueGrid ticks={y.ticks(4)} y={y} width={w} />
-      {x.ticks(4).map((t) => (
+      {logTicks(x.ticks(6)).map((t) => (
         <text key={t} className="plot__tick" x={x(t)} y={h + 16} textAnchor="middle">
           {sig.format(t)}
         </text>
