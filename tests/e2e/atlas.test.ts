@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { type Browser, baseUrl, openBrowser, signIn, watchOutsideRequests } from './browser.js';
+import { type Browser, openBrowser, signIn, watchOutsideRequests } from './browser.js';
 
 describe('the scientist explores the demo season in the Atlas', () => {
   let browser: Browser;
@@ -57,6 +57,21 @@ describe('the scientist explores the demo season in the Atlas', () => {
     await page.getByRole('tab', { name: 'Motion rose' }).click();
     await page.getByRole('img', { name: 'Rose of storm motion' }).waitFor();
     await page.getByText(/most moved toward (NW|NNW|WNW)/).waitFor();
+    const [png] = await Promise.all([
+      page.waitForEvent('download'),
+      page
+        .getByRole('group', { name: 'Export the motion rose' })
+        .getByRole('button', { name: 'PNG' })
+        .click(),
+    ]);
+    expect(png.suggestedFilename()).toBe('atlas-motion-rose.png');
+    // The PNG signature (ISO/IEC 15948, §5.2): 89 50 4E 47 0D 0A 1A 0A.
+    expect(
+      readFileSync(await png.path())
+        .subarray(0, 8)
+        .toString('hex'),
+    ).toBe('89504e470d0a1a0a');
+    await page.screenshot({ path: fileURLToPath(new URL('./screenshots/atlas-rose.png', import.meta.url)) });
 
     await page.getByRole('tab', { name: 'Time–distance' }).click();
     await page.getByRole('img', { name: 'Onsets by local time and distance along the axis' }).waitFor();
