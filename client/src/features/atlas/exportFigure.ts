@@ -68,31 +68,30 @@ export function downloadSvg(svg: SVGSVGElement, fileName: string) {
   download(new Blob([standaloneSvg(svg)], { type: 'image/svg+xml' }), `${fileName}.svg`);
 }
 
-/** PNG at twice the SVG's size: the standalone SVG drawn onto a canvas, all in the browser. */
+/**
+ * PNG at twice the SVG's size: the standalone SVG drawn onto a canvas, all in the browser. The image is
+ * given as a data: address, which the app's content security policy allows for images (blob: it does not).
+ */
 export async function downloadPng(svg: SVGSVGElement, fileName: string, scale = 2): Promise<void> {
   const box = svg.viewBox.baseVal;
   const width = Math.round((box?.width || svg.clientWidth || 800) * scale);
   const height = Math.round((box?.height || svg.clientHeight || 600) * scale);
-  const url = URL.createObjectURL(new Blob([standaloneSvg(svg)], { type: 'image/svg+xml' }));
-  try {
-    const image = new Image();
-    await new Promise<void>((resolve, reject) => {
-      image.onload = () => resolve();
-      image.onerror = () => reject(new Error('The figure could not be drawn as an image.'));
-      image.src = url;
-    });
-    const canvas = document.createElement('canvas');
-    canvas.width = width;
-    canvas.height = height;
-    const context = canvas.getContext('2d');
-    if (!context) throw new Error('This browser cannot draw onto a canvas.');
-    context.drawImage(image, 0, 0, width, height);
-    const png = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));
-    if (!png) throw new Error('The image could not be encoded as PNG.');
-    download(png, `${fileName}.png`);
-  } finally {
-    URL.revokeObjectURL(url);
-  }
+  const url = `data:image/svg+xml;charset=utf-8,${encodeURIComponent(standaloneSvg(svg))}`;
+  const image = new Image();
+  await new Promise<void>((resolve, reject) => {
+    image.onload = () => resolve();
+    image.onerror = () => reject(new Error('The figure could not be drawn as an image.'));
+    image.src = url;
+  });
+  const canvas = document.createElement('canvas');
+  canvas.width = width;
+  canvas.height = height;
+  const context = canvas.getContext('2d');
+  if (!context) throw new Error('This browser cannot draw onto a canvas.');
+  context.drawImage(image, 0, 0, width, height);
+  const png = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));
+  if (!png) throw new Error('The image could not be encoded as PNG.');
+  download(png, `${fileName}.png`);
 }
 
 /** CSV of plain rows (the same columns in every row), written by papaparse. */
