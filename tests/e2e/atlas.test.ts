@@ -75,6 +75,17 @@ describe('the scientist explores the demo season in the Atlas', () => {
 
     await page.getByRole('tab', { name: 'Time–distance' }).click();
     await page.getByRole('img', { name: 'Onsets by local time and distance along the axis' }).waitFor();
+    // Draw an axis with two clicks: A in the south-west of the map, B in the north-east.
+    const picker = page.getByRole('img', { name: 'Map for drawing the time–distance axis' });
+    const box = await picker.boundingBox();
+    if (!box) throw new Error('no axis map');
+    await picker.click({ position: { x: box.width * 0.35, y: box.height * 0.8 } });
+    await page.getByText('Click the map again to place B, the axis’s end.').waitFor();
+    await picker.click({ position: { x: box.width * 0.6, y: box.height * 0.2 } });
+    await page.waitForFunction(() => new URL(location.href).searchParams.has('toLat'));
+    const url = new URL(page.url());
+    expect(Number(url.searchParams.get('fromLat'))).toBeLessThan(Number(url.searchParams.get('toLat')));
+    await page.getByText(/onsets within 40 km of the \d+ km axis/).waitFor();
     await page.getByRole('tab', { name: 'Distributions' }).click();
     await page.getByRole('img', { name: 'Histogram of duration' }).waitFor();
     await page.getByText(/too lenient \(Lilliefors 1967\)/).waitFor();

@@ -148,11 +148,15 @@ function DensityOverlay({
         ? bands.map((b, k) => (
             <path
               key={b.threshold}
+              className="atlas-band"
               d={map.path(b.geometry as GeoPermissibleObjects)}
-              fill={bandColour(k, bands.length)}
-              fillOpacity={0.55}
-              stroke={bandColour(k, bands.length)}
-              strokeWidth={0.5}
+              // Inline style: the map's stylesheet empties the fill of every overlay path.
+              style={{
+                fill: bandColour(k, bands.length),
+                fillOpacity: 0.55,
+                stroke: bandColour(k, bands.length),
+                strokeWidth: 0.5,
+              }}
             />
           ))
         : null}
