@@ -249,8 +249,8 @@ export function OnsetMapView({
           <p className="atlas-note">
             Density in onsets per 1000 km² per day ({map.data.scope.days} days), Gaussian kernel of bandwidth{' '}
             {map.data.bandwidthKm} km on a {map.data.density.gridKm} km grid; it integrates to{' '}
-            {densityFormat.format(map.data.density.integral)} of {map.data.points.length} onsets (the rest
-            lies beyond the grid). Dots: onsets, {when} local time. Dashed line: radar coverage.
+            {Math.round(map.data.density.integral)} of {map.data.points.length} onsets (the rest lies beyond
+            the grid). Dots: onsets, {when} local time. Dashed line: radar coverage.
           </p>
           <ExportBar
             what="onset map"
