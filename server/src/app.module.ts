@@ -2,6 +2,7 @@ import { type DynamicModule, type MiddlewareConsumer, Module, type NestModule } 
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
 import { ServeStaticModule } from '@nestjs/serve-static';
 import { AdviceModule } from './advice/advice.module.js';
+import { AtlasModule } from './atlas/atlas.module.js';
 import { AuditModule } from './audit/audit.module.js';
 import { AuthModule } from './auth/auth.module.js';
 import { JwtAuthGuard, RolesGuard } from './common/access.guards.js';
@@ -46,6 +47,7 @@ export class AppModule implements NestModule {
         JobsModule,
         RadarModule,
         RegimesModule,
+        AtlasModule,
         IntakeModule,
         MailModule,
         AdviceModule,

@@ -2,6 +2,7 @@ export * from './advice/chance-words.js';
 export * from './advice/evaluate-rules.js';
 export * from './advice/iso-week.js';
 export * from './advice.js';
+export * from './atlas.js';
 export * from './audit.js';
 export * from './auth.js';
 export * from './bulletins.js';

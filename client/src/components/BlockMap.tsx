@@ -14,6 +14,8 @@ export interface MapProjector {
   point: (lon: number, lat: number) => [x: number, y: number] | null;
   /** SVG path data of any GeoJSON object (rings wound as d3-geo expects). */
   path: (object: GeoPermissibleObjects) => string;
+  /** Longitude/latitude of a point of the drawing (SVG units), e.g. where the user clicked. */
+  invert: (x: number, y: number) => [lon: number, lat: number] | null;
 }
 
 export interface BlockMapProps {
@@ -68,6 +70,7 @@ function useDrawing(
     const projector: MapProjector = {
       point: (lon, lat) => projection([lon, lat]),
       path: (object) => path(object) ?? '',
+      invert: (x, y) => projection.invert?.([x, y]) ?? null,
     };
     const colours = coloursForGroups(features.map((f) => f.properties.districtCode));
     const drawn: DrawnBlock[] = features.map((f) => ({

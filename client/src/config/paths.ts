@@ -94,4 +94,11 @@ export const api = {
   adviceRule: (id: number) => `/api/advice-rules/${id}`,
   outlook: '/api/outlook',
   outlookCsv: '/api/outlook.csv',
+  atlas: {
+    map: '/api/atlas/map',
+    diurnal: '/api/atlas/diurnal',
+    distributions: '/api/atlas/distributions',
+    timeDistance: '/api/atlas/time-distance',
+    motion: '/api/atlas/motion',
+  },
 } as const;

@@ -59,6 +59,11 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'PUT /api/advice-rules/:id': ['scientist'],
   'GET /api/outlook': ['scientist', 'writer'],
   'GET /api/outlook.csv': ['scientist', 'writer'],
+  'GET /api/atlas/map': ['scientist'],
+  'GET /api/atlas/diurnal': ['scientist'],
+  'GET /api/atlas/distributions': ['scientist'],
+  'GET /api/atlas/time-distance': ['scientist'],
+  'GET /api/atlas/motion': ['scientist'],
 };
 
 interface ExpressLayer {
