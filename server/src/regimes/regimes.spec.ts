@@ -114,7 +114,8 @@ describe('anomaly intake and regimes', () => {
     };
     console.log(`onsets per day: dry ${perDay('dry').toFixed(1)}, moist ${perDay('moist').toFixed(1)}`);
     expect(perDay('moist')).toBeGreaterThan(2 * perDay('dry'));
-  });
+    // Loads and tracks the whole season's cell table: give it room on a busy 2-core machine.
+  }, 180_000);
 
   it('composites a regime cell by cell and refuses one with no days', async () => {
     const { counts } = (await t.http.get(`/api/regimes?siteId=${siteId}`).set(auth)).body;
