@@ -21,6 +21,7 @@ import {
   type SiteView,
 } from '@stormhour/shared';
 import type { z } from 'zod';
+import { localDate, localHourOfDay, localMidnightOfDate } from '../radar/engine/local-time.js';
 import { sitePlane } from '../radar/engine/site-plane.js';
 import { SitesService } from '../radar/sites.service.js';
 import { RegimesService } from '../regimes/regimes.service.js';
@@ -37,7 +38,6 @@ import { axisLength, projectOntoAxis, timeDistanceCounts } from './engine/axis.j
 import { contourBands, niceThresholds } from './engine/contour-bands.js';
 import { countByHour, meanByHour, peakHour } from './engine/diurnal.js';
 import { gaussianKde, gridAround, gridIntegral } from './engine/kde.js';
-import { localDate, localHour, localMidnightUtc } from './engine/local-time.js';
 import {
   fitLogNormal,
   ksCriticalValue,
@@ -143,7 +143,7 @@ export class AtlasService {
       const dates: string[] = [];
       for (let i = 0; i < columns.n; i++) {
         [xKm[i], yKm[i]] = plane.toKm(columns.lon[i], columns.lat[i]);
-        hours[i] = localHour(columns.timeMs[i], site.utcOffsetMinutes);
+        hours[i] = localHourOfDay(columns.timeMs[i], site.utcOffsetMinutes);
         dates.push(localDate(columns.timeMs[i], site.utcOffsetMinutes));
       }
       return { columns, localHour: hours, localDate: dates, xKm, yKm };
@@ -160,8 +160,8 @@ export class AtlasService {
     const site = await this.sites.get(q.siteId);
     const offset = site.utcOffsetMinutes;
     const period: Period = {
-      fromMs: q.from ? localMidnightUtc(q.from, offset) : undefined,
-      toMs: q.to ? localMidnightUtc(q.to, offset) + 86_400_000 : undefined,
+      fromMs: q.from ? localMidnightOfDate(q.from, offset) : undefined,
+      toMs: q.to ? localMidnightOfDate(q.to, offset) + 86_400_000 : undefined,
     };
     const onsetsBySource = await this.repo.onsetsBySource(site.id, period);
     const source =
@@ -302,7 +302,7 @@ export class AtlasService {
       if (s.keepsCell(localDate(cells.timeMs[i], offset), cells.blockId[i], cells.cellType[i]))
         keptCells.push(i);
     }
-    const cellHours = Float64Array.from(keptCells, (i) => localHour(cells.timeMs[i], offset));
+    const cellHours = Float64Array.from(keptCells, (i) => localHourOfDay(cells.timeMs[i], offset));
     const cellTypes = Uint8Array.from(keptCells, (i) => cells.cellType[i]);
     const properties = (Object.keys(PROPERTY_UNITS) as DiurnalProperty[]).map((property) => {
       const values = Float64Array.from(keptCells, (i) => cells[property][i]);

@@ -9,12 +9,12 @@ import {
   type OutlookResponse,
   type OutlookSource,
 } from '@stormhour/shared';
+import { dateOfDay, dayOfDate, localDay, localMidnightUtc } from '../radar/engine/local-time.js';
 import { sitePlane } from '../radar/engine/site-plane.js';
 import { SitesService } from '../radar/sites.service.js';
 import { RegimesService } from '../regimes/regimes.service.js';
 import { RegionsRepository } from '../regions/regions.repository.js';
 import { areaAndPerimeter, bufferedAreaKm2, coverageFraction, toPlane } from './engine/block-coverage.js';
-import { dateOfDay, dayOfDate, localDay, localMidnightUtc } from './engine/local-time.js';
 import { blocksWithin, ownBlock } from './engine/neighbourhood.js';
 import { computeOutlook, type OutlookResult } from './engine/outlook.js';
 import { type EventColumns, OutlookRepository, type TimeRange } from './outlook.repository.js';

@@ -1,5 +1,5 @@
 import type { IntervalMethod } from '@stormhour/shared';
-import { jStat } from './jstat.js';
+import jStat from 'jstat';
 
 export interface Interval {
   lower: number;

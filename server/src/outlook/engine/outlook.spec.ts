@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import { dayOfDate, HOUR_MS, localDay, localHour, localMidnightUtc } from '../../radar/engine/local-time.js';
 import { jeffreysInterval } from './intervals.js';
-import { dayOfDate, HOUR_MS, localDay, localHour, localMidnightUtc } from './local-time.js';
 import { ownBlock } from './neighbourhood.js';
 import { computeOutlook, type OutlookInput } from './outlook.js';
 

@@ -1,6 +1,6 @@
 import type { IntervalMethod, OutlookFigure, OutlookWeek } from '@stormhour/shared';
+import { DAY_MS, HOUR_MS } from '../../radar/engine/local-time.js';
 import { binomialInterval } from './intervals.js';
-import { DAY_MS, HOUR_MS } from './local-time.js';
 import type { EventBlocks } from './neighbourhood.js';
 import { type BetaPrior, fitBetaPrior, shrunkRate } from './shrinkage.js';
 import { weekWindows } from './weekly.js';

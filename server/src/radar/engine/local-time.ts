@@ -25,3 +25,19 @@ export function dateOfDay(day: number): string {
 export function localMidnightUtc(day: number, utcOffsetMinutes: number): number {
   return day * DAY_MS - utcOffsetMinutes * 60_000;
 }
+
+/** Hour of the local day with its fraction, 0 ≤ h < 24. */
+export function localHourOfDay(t: number, utcOffsetMinutes: number): number {
+  const local = t + utcOffsetMinutes * 60_000;
+  return (local - Math.floor(local / DAY_MS) * DAY_MS) / HOUR_MS;
+}
+
+/** The local date t falls on, YYYY-MM-DD. */
+export function localDate(t: number, utcOffsetMinutes: number): string {
+  return dateOfDay(localDay(t, utcOffsetMinutes));
+}
+
+/** The UTC instant a local date (YYYY-MM-DD) begins. */
+export function localMidnightOfDate(date: string, utcOffsetMinutes: number): number {
+  return localMidnightUtc(dayOfDate(date), utcOffsetMinutes);
+}
