@@ -1,6 +1,3 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import type {
   AtlasDistributionsResponse,
   AtlasDiurnalResponse,
@@ -9,12 +6,8 @@ import type {
   AtlasTimeDistanceResponse,
 } from '@stormhour/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { JobsService } from '../jobs/jobs.service.js';
+import { loadDemoSeason } from '../testing/demo-season.js';
 import { createTestApp, type TestApp } from '../testing/test-app.js';
-
-const demo = fileURLToPath(new URL('../../../sample-data/vessary/', import.meta.url));
-const site = JSON.parse(readFileSync(join(demo, 'site.json'), 'utf8'));
-const grids = ['q', 'u', 'v'].map((v) => `anomalies-2025-${v}850.tif`);
 
 /** Ring centroid in lon/lat (shoelace), good enough to say which part of the province a band covers. */
 function largestRingCentroid(coordinates: number[][][][]): { lon: number; lat: number; area: number } {
@@ -43,24 +36,7 @@ describe('Atlas on the demo season', () => {
 
   beforeAll(async () => {
     t = await createTestApp({ uploadLimitBytes: 20 * 1024 * 1024 });
-    const admin = { Authorization: `Bearer ${await t.signedIn('admin')}` };
-    await t.http
-      .post('/api/blocks/import')
-      .set(admin)
-      .attach('file', readFileSync(join(demo, 'blocks.geojson')), 'blocks.geojson')
-      .expect(201);
-    auth = { Authorization: `Bearer ${await t.signedIn('scientist')}` };
-    siteId = (await t.http.post('/api/radar-sites').set(auth).send(site.createSiteRequest).expect(201)).body
-      .id;
-    const upload = async (kind: string, names: string[]) => {
-      const req = t.http.post('/api/intake').set(auth).field('siteId', String(siteId)).field('kind', kind);
-      for (const n of names) req.attach('files[]', readFileSync(join(demo, n)), n);
-      await req.expect(202);
-      await t.app.get(JobsService).idle();
-    };
-    await upload('anomaly-grid', grids);
-    await upload('scan-inventory', ['scans-2025.csv']);
-    await upload('cell-table', ['cells-2025.csv']);
+    ({ siteId, scientist: auth } = await loadDemoSeason(t));
   }, 240_000);
   afterAll(() => t.close());
 

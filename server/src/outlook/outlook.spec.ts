@@ -1,17 +1,8 @@
-import { readdirSync, readFileSync } from 'node:fs';
-import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import type { OutlookBlock, OutlookResponse } from '@stormhour/shared';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { JobsService } from '../jobs/jobs.service.js';
+import { loadDemoSeason } from '../testing/demo-season.js';
 import { createTestApp, type TestApp } from '../testing/test-app.js';
-
-const demo = fileURLToPath(new URL('../../../sample-data/vessary/', import.meta.url));
-const site = JSON.parse(readFileSync(join(demo, 'site.json'), 'utf8'));
-const grids = readdirSync(demo).filter((f) => /^anomalies-.*\.tif$/.test(f));
-const cells = readdirSync(demo).find((f) => f.startsWith('cells-')) as string;
-const scans = readdirSync(demo).find((f) => f.startsWith('scans-')) as string;
 
 const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
 
@@ -22,29 +13,10 @@ describe('GET /api/outlook on the demo season', () => {
   let siteId: number;
   let all: OutlookResponse;
 
-  async function upload(kind: string, names: string[]) {
-    const req = t.http.post('/api/intake').set(auth).field('siteId', String(siteId)).field('kind', kind);
-    for (const n of names) req.attach('files[]', readFileSync(join(demo, n)), n);
-    const res = await req.expect(202);
-    await t.app.get(JobsService).idle();
-    return (await t.http.get(`/api/jobs/${res.body.id}`).set(auth).expect(200)).body;
-  }
-
   beforeAll(async () => {
     t = await createTestApp({ uploadLimitBytes: 20 * 1024 * 1024 });
-    const admin = { Authorization: `Bearer ${await t.signedIn('admin')}` };
-    await t.http
-      .post('/api/blocks/import')
-      .set(admin)
-      .attach('file', readFileSync(join(demo, 'blocks.geojson')), 'blocks.geojson')
-      .expect(201);
-    auth = { Authorization: `Bearer ${await t.signedIn('scientist')}` };
+    ({ siteId, scientist: auth } = await loadDemoSeason(t));
     writer = { Authorization: `Bearer ${await t.signedIn('writer')}` };
-    siteId = (await t.http.post('/api/radar-sites').set(auth).send(site.createSiteRequest).expect(201)).body
-      .id;
-    expect((await upload('anomaly-grid', grids)).state).toBe('done');
-    expect((await upload('scan-inventory', [scans])).state).toBe('done');
-    expect((await upload('cell-table', [cells])).state).toBe('done');
     all = (await t.http.get(`/api/outlook?siteId=${siteId}`).set(writer).expect(200)).body;
   }, 240_000);
   afterAll(() => t.close());
