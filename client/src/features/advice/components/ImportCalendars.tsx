@@ -1,9 +1,9 @@
 import { FileUploaderDropContainer, InlineNotification, ProgressBar } from '@carbon/react';
 import { CROP_CALENDAR_COLUMNS } from '@stormhour/shared';
 import { useState } from 'react';
+import { ProblemTable } from '../../../components/ProblemTable';
 import { ApiError, messageOf } from '../../../lib/apiError';
 import { useImportCropCalendars } from '../api';
-import { ProblemTable } from './ProblemTable';
 
 /** Upload one CSV of crop calendars; shows progress, what it replaced, or every refused row. */
 export function ImportCalendars() {

@@ -1,42 +1,10 @@
-import {
-  FileUploaderDropContainer,
-  InlineNotification,
-  ProgressBar,
-  Table,
-  TableBody,
-  TableCell,
-  TableHead,
-  TableHeader,
-  TableRow,
-} from '@carbon/react';
-import { BLOCK_FEATURE_PROPERTIES, type ErrorDetail } from '@stormhour/shared';
+import { FileUploaderDropContainer, InlineNotification, ProgressBar } from '@carbon/react';
+import { BLOCK_FEATURE_PROPERTIES } from '@stormhour/shared';
 import { useState } from 'react';
+import { ProblemTable } from '../../../../components/ProblemTable';
 import { ApiError, messageOf } from '../../../../lib/apiError';
 import { useImportBlocks } from '../api';
 import { BOUNDARY_FILE_ACCEPT, importSummary, isBoundaryFile } from '../blockList';
-
-function ProblemTable({ problems }: { problems: ErrorDetail[] }) {
-  return (
-    <Table aria-label="Problems in the file" size="sm">
-      <TableHead>
-        <TableRow>
-          <TableHeader>Where</TableHeader>
-          <TableHeader>Problem</TableHeader>
-        </TableRow>
-      </TableHead>
-      <TableBody>
-        {problems.map((p, index) => (
-          // The same feature can have several problems, so the index keeps keys unique.
-          // biome-ignore lint/suspicious/noArrayIndexKey: rows never reorder.
-          <TableRow key={index}>
-            <TableCell className="mono">{p.where}</TableCell>
-            <TableCell>{p.problem}</TableCell>
-          </TableRow>
-        ))}
-      </TableBody>
-    </Table>
-  );
-}
 
 /** Upload one GeoJSON file of block boundaries; shows progress, the outcome, or every refused feature. */
 export function ImportBlocks() {
