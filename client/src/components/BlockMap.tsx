@@ -35,6 +35,8 @@ export interface BlockMapProps {
   fitAlso?: GeoPermissibleObjects[];
   /** Drawn above the blocks in the same projection (coverage, a track's path, markers). */
   overlay?: (projector: MapProjector) => ReactNode;
+  /** Called with the block's id when it is clicked, or chosen with Enter or Space while focused. */
+  onPick?: (blockId: number) => void;
 }
 
 const NOTHING_MORE: GeoPermissibleObjects[] = [];
@@ -120,6 +122,7 @@ export function BlockMap({
   height = 480,
   fitAlso,
   overlay,
+  onPick,
 }: BlockMapProps) {
   const { drawn, labels, legend, projector } = useDrawing(blocks, width, height, fillOf, fitAlso);
   const [activeId, setActiveId] = useState<number | null>(null);
@@ -147,6 +150,17 @@ export function BlockMap({
               onMouseEnter={() => setActiveId(block.key)}
               onFocus={() => setActiveId(block.key)}
               onBlur={() => setActiveId((id) => (id === block.key ? null : id))}
+              onClick={onPick ? () => onPick(block.key) : undefined}
+              onKeyDown={
+                onPick
+                  ? (e) => {
+                      if (e.key === 'Enter' || e.key === ' ') {
+                        e.preventDefault();
+                        onPick(block.key);
+                      }
+                    }
+                  : undefined
+              }
             >
               <title>{tooltipOf(block.props, describe?.(block.props) ?? null)}</title>
             </path>

@@ -162,6 +162,13 @@ describe('Outlook', { timeout: 30_000 }, () => {
     expect(screen.getByRole('img', { name: 'Diurnal cycle of Rookenvale' })).toBeTruthy();
     await userEvent.selectOptions(screen.getByLabelText('Block'), '2');
     expect(screen.getByRole('img', { name: 'Diurnal cycle of Lorrendal' })).toBeTruthy();
+    // A block on the map is picked by a click, or by Enter when reached with the keyboard.
+    const map = screen.getByRole('img', { name: 'Map of the afternoon chance (12–18 local) per block' });
+    await userEvent.click(within(map).getByLabelText('Rookenvale (HLF-01), Hillfoot'));
+    expect(screen.getByRole('img', { name: 'Diurnal cycle of Rookenvale' })).toBeTruthy();
+    within(map).getByLabelText('Umberlyn (RVB-02), Riverbend').focus();
+    await userEvent.keyboard('{Enter}');
+    expect(screen.getByRole('img', { name: 'Diurnal cycle of Umberlyn' })).toBeTruthy();
     // The afternoon and week figures per block, with their intervals and n.
     const figures = screen.getByRole('table', { name: 'Afternoon and week, per block' });
     expect(within(within(figures).getByRole('row', { name: /Rookenvale/ })).getByText('60 %')).toBeTruthy();

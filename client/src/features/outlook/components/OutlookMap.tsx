@@ -10,9 +10,12 @@ const HATCH = 'outlook-no-data-hatch';
 export function OutlookMap({
   outlook,
   outlines,
+  onSelectBlock,
 }: {
   outlook: OutlookResponse;
   outlines: BlockFeatureCollection;
+  /** Picks the block whose daily cycle is drawn beside the map. */
+  onSelectBlock?: (blockId: number) => void;
 }) {
   const byId = useMemo(() => new Map(outlook.blocks.map((b) => [b.blockId, b])), [outlook.blocks]);
   const top = useMemo(() => {
@@ -47,6 +50,7 @@ export function OutlookMap({
         describe={describe}
         width={640}
         height={420}
+        onPick={onSelectBlock}
         overlay={() => (
           <defs>
             <pattern

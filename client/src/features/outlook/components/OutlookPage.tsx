@@ -268,7 +268,9 @@ function OutlookBody({ outlook, params }: { outlook: OutlookResponse; params: Ou
           <h2 id="outlook-map-title" className="section-title">
             Afternoon chance by block
           </h2>
-          {outlines.isSuccess ? <OutlookMap outlook={outlook} outlines={outlines.data} /> : null}
+          {outlines.isSuccess ? (
+            <OutlookMap outlook={outlook} outlines={outlines.data} onSelectBlock={setSelected} />
+          ) : null}
           {outlines.isPending ? <InlineLoading description="Loading the block outlines" /> : null}
           {outlines.isError ? (
             <LoadError what="the block outlines" error={outlines.error} onRetry={outlines.refetch} />
