@@ -1,6 +1,7 @@
-import { FileUploaderDropContainer, InlineNotification, ProgressBar } from '@carbon/react';
+import { FileUploaderDropContainer, InlineNotification } from '@carbon/react';
 import { CROP_CALENDAR_COLUMNS } from '@stormhour/shared';
 import { useState } from 'react';
+import { FileSendProgress } from '../../../components/FileSendProgress';
 import { ProblemTable } from '../../../components/ProblemTable';
 import { ApiError, messageOf } from '../../../lib/apiError';
 import { useImportCropCalendars } from '../api';
@@ -40,12 +41,7 @@ export function ImportCalendars() {
         onAddFiles={(_event, { addedFiles }) => start(addedFiles[0])}
       />
       {mutation.isPending ? (
-        <ProgressBar
-          label={`Uploading ${fileName ?? 'the file'}`}
-          helperText={progress < 1 ? `${Math.round(progress * 100)} % sent` : 'Checking the rows…'}
-          value={progress < 1 ? progress * 100 : undefined}
-          max={100}
-        />
+        <FileSendProgress fileName={fileName} progress={progress} checking="Checking the rows…" />
       ) : null}
       {wrongType ? (
         <InlineNotification kind="error" lowContrast title="Choose a CSV file." subtitle={wrongType} />

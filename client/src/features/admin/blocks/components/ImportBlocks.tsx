@@ -1,6 +1,7 @@
-import { FileUploaderDropContainer, InlineNotification, ProgressBar } from '@carbon/react';
+import { FileUploaderDropContainer, InlineNotification } from '@carbon/react';
 import { BLOCK_FEATURE_PROPERTIES } from '@stormhour/shared';
 import { useState } from 'react';
+import { FileSendProgress } from '../../../../components/FileSendProgress';
 import { ProblemTable } from '../../../../components/ProblemTable';
 import { ApiError, messageOf } from '../../../../lib/apiError';
 import { useImportBlocks } from '../api';
@@ -42,12 +43,7 @@ export function ImportBlocks() {
         onAddFiles={(_event, { addedFiles }) => start(addedFiles[0])}
       />
       {mutation.isPending ? (
-        <ProgressBar
-          label={`Uploading ${fileName ?? 'the file'}`}
-          helperText={progress < 1 ? `${Math.round(progress * 100)} % sent` : 'Checking the features…'}
-          value={progress < 1 ? progress * 100 : undefined}
-          max={100}
-        />
+        <FileSendProgress fileName={fileName} progress={progress} checking="Checking the features…" />
       ) : null}
       {wrongType ? (
         <InlineNotification kind="error" lowContrast title="Choose a GeoJSON file." subtitle={wrongType} />
