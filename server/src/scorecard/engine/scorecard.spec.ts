@@ -1,7 +1,7 @@
 import type { ScorecardPair } from '@stormhour/shared';
 import { describe, expect, it } from 'vitest';
 import { chanceRanks, rocAreaByRank, scorePairs } from './scorecard.js';
-import { roc } from './verification.js';
+import { bootstrapInterval, brierScore, roc } from './verification.js';
 
 const pair = (
   date: string,
@@ -97,6 +97,21 @@ describe('scoring pairs', () => {
     expect(si.lower).toBeLessThan(a.skill as number);
     expect(si.upper).toBeGreaterThan(a.skill as number);
     expect(a.days).toBe(40);
+    // The per-day sums give exactly the interval of resampling the pairs themselves.
+    const days = [...new Set(pairs.map((p) => p.date))].map((d) =>
+      pairs.flatMap((p, i) => (p.date === d ? [i] : [])),
+    );
+    const direct = bootstrapInterval(
+      days,
+      (idx) =>
+        brierScore(
+          idx.map((i) => pairs[i].chance),
+          idx.map((i) => pairs[i].observed),
+        ),
+      { resamples: 400, seed: 3 },
+    );
+    expect(bi.lower).toBeCloseTo(direct.lower, 12);
+    expect(bi.upper).toBeCloseTo(direct.upper, 12);
   });
 
   it('lists blocks worst first, marks thin reliability bins and leaves empty ones without a frequency', () => {

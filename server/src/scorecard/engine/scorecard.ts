@@ -8,7 +8,7 @@ import type {
 } from '@stormhour/shared';
 import { wilsonInterval } from '../../outlook/engine/intervals.js';
 import {
-  bootstrapInterval,
+  bootstrapIntervalByCounts,
   brierScore,
   brierSkill,
   contingency,
@@ -57,10 +57,15 @@ export function rocAreaByRank(
     if (o[i]) events[ranks.rank[i]]++;
     else nonEvents[ranks.rank[i]]++;
   }
+  return rocAreaFromCounts(events, nonEvents);
+}
+
+/** The Mann–Whitney area from events and non-events counted per rank of chance, ascending. */
+function rocAreaFromCounts(events: Float64Array, nonEvents: Float64Array): number {
   let below = 0;
   let wins = 0;
   let nEvents = 0;
-  for (let k = 0; k < ranks.distinct; k++) {
+  for (let k = 0; k < events.length; k++) {
     wins += events[k] * (below + nonEvents[k] / 2);
     below += nonEvents[k];
     nEvents += events[k];
@@ -131,11 +136,60 @@ export function scorePairs(pairs: readonly ScorecardPair[], options: ScoreOption
     return brierSkill(bs, bsRef);
   };
   const ranks = chanceRanks(f);
-  const rocAreaOf = (indices: readonly number[]) => rocAreaByRank(ranks, o, indices);
-  const boot = (statistic: (indices: number[]) => number) =>
-    options.resamples > 0 && days.length > 1
+
+  // The bootstrap draws whole days a thousand times: each statistic is rebuilt from per-day sums
+  // weighted by how often the day was drawn, so a resample costs the days, not the pairs.
+  const dayCount = days.length;
+  const R = ranks.distinct;
+  const dayPairs = new Float64Array(dayCount);
+  const daySquares = new Float64Array(dayCount);
+  const dayRefSquaresModel = new Float64Array(dayCount);
+  const dayRefSquares = new Float64Array(dayCount);
+  const dayEvents = new Float64Array(dayCount * R);
+  const dayNonEvents = new Float64Array(dayCount * R);
+  days.forEach((indices, d) => {
+    for (const i of indices) {
+      const e = (f[i] - o[i]) ** 2;
+      dayPairs[d]++;
+      daySquares[d] += e;
+      if (hasRef[i]) {
+        dayRefSquaresModel[d] += e;
+        dayRefSquares[d] += (ref[i] - o[i]) ** 2;
+      }
+      if (o[i]) dayEvents[d * R + ranks.rank[i]]++;
+      else dayNonEvents[d * R + ranks.rank[i]]++;
+    }
+  });
+  const weighted = (w: Float64Array, perDay: Float64Array) => {
+    let sum = 0;
+    for (let d = 0; d < dayCount; d++) sum += w[d] * perDay[d];
+    return sum;
+  };
+  const brierByDays = (w: Float64Array) => weighted(w, daySquares) / weighted(w, dayPairs);
+  const skillByDays = (w: Float64Array) =>
+    brierSkill(weighted(w, dayRefSquaresModel), weighted(w, dayRefSquares));
+  const drawnEvents = new Float64Array(R);
+  const drawnNonEvents = new Float64Array(R);
+  const rocAreaByDays = (w: Float64Array) => {
+    drawnEvents.fill(0);
+    drawnNonEvents.fill(0);
+    for (let d = 0; d < dayCount; d++) {
+      if (w[d] === 0) continue;
+      for (let r = 0; r < R; r++) {
+        drawnEvents[r] += w[d] * dayEvents[d * R + r];
+        drawnNonEvents[r] += w[d] * dayNonEvents[d * R + r];
+      }
+    }
+    return rocAreaFromCounts(drawnEvents, drawnNonEvents);
+  };
+  const boot = (statistic: (timesDrawn: Float64Array) => number) =>
+    options.resamples > 0 && dayCount > 1
       ? interval(
-          bootstrapInterval(days, statistic, { resamples: options.resamples, level, seed: options.seed }),
+          bootstrapIntervalByCounts(dayCount, statistic, {
+            resamples: options.resamples,
+            level,
+            seed: options.seed,
+          }),
         )
       : null;
 
@@ -182,10 +236,10 @@ export function scorePairs(pairs: readonly ScorecardPair[], options: ScoreOption
     days: days.length,
     events,
     brier: n > 0 ? brierOf(all) : null,
-    brierInterval: n > 0 ? boot(brierOf) : null,
+    brierInterval: n > 0 ? boot(brierByDays) : null,
     climatologyBrier: finite(climatologyBrier),
     skill: withRef.length ? finite(skillOf(all)) : null,
-    skillInterval: withRef.length ? boot(skillOf) : null,
+    skillInterval: withRef.length ? boot(skillByDays) : null,
     murphy: murphy && {
       reliability: murphy.reliability,
       resolution: murphy.resolution,
@@ -195,7 +249,7 @@ export function scorePairs(pairs: readonly ScorecardPair[], options: ScoreOption
     reliability,
     fewCases,
     roc: { points: curve.points.filter((p) => Number.isFinite(p.threshold)), area: finite(curve.area) },
-    rocAreaInterval: n > 0 ? boot(rocAreaOf) : null,
+    rocAreaInterval: n > 0 ? boot(rocAreaByDays) : null,
     thresholds,
     blocks,
     resamples: options.resamples,

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { pythonWithScipy, runPython } from '../../testing/scipy.js';
 import {
   bootstrapInterval,
+  bootstrapIntervalByCounts,
   brierScore,
   brierSkill,
   contingency,
@@ -143,6 +144,17 @@ describe('bootstrap over days', () => {
     expect(b.upper).toBeGreaterThan(m);
     expect((b.upper - b.lower) / 2 / expectedHalf).toBeGreaterThan(0.85);
     expect((b.upper - b.lower) / 2 / expectedHalf).toBeLessThan(1.15);
+  });
+
+  it('draws the same resamples when given as counts per day, so sums per day give the same interval', () => {
+    const byIndices = bootstrapInterval(groups, mean, { resamples: 500, seed: 4 });
+    const byCounts = bootstrapIntervalByCounts(
+      groups.length,
+      (times) => values.reduce((s, v, d) => s + times[d] * v, 0) / groups.length,
+      { resamples: 500, seed: 4 },
+    );
+    expect(byCounts.lower).toBeCloseTo(byIndices.lower, 12);
+    expect(byCounts.upper).toBeCloseTo(byIndices.upper, 12);
   });
 
   it('is repeatable with a seed and resamples whole days', () => {

@@ -205,16 +205,50 @@ export function contingency(f: Numbers, o: Numbers, threshold: number): Continge
 export function bootstrapInterval(
   groups: readonly (readonly number[])[],
   statistic: (indices: number[]) => number,
-  options: { resamples?: number; level?: number; seed?: number } = {},
+  options: BootstrapOptions = {},
+): { lower: number; upper: number; resamples: number } {
+  return percentileInterval(groups.length, options, (pick) => {
+    const indices: number[] = [];
+    for (let g = 0; g < groups.length; g++) for (const i of groups[pick()]) indices.push(i);
+    return statistic(indices);
+  });
+}
+
+/**
+ * The same bootstrap (same seed, same draws) with each resample given as how many times every group
+ * was drawn. For statistics built from per-group sums this costs the number of groups per resample,
+ * not the number of cases.
+ */
+export function bootstrapIntervalByCounts(
+  groupCount: number,
+  statistic: (timesDrawn: Float64Array) => number,
+  options: BootstrapOptions = {},
+): { lower: number; upper: number; resamples: number } {
+  const counts = new Float64Array(groupCount);
+  return percentileInterval(groupCount, options, (pick) => {
+    counts.fill(0);
+    for (let g = 0; g < groupCount; g++) counts[pick()]++;
+    return statistic(counts);
+  });
+}
+
+export interface BootstrapOptions {
+  resamples?: number;
+  level?: number;
+  seed?: number;
+}
+
+function percentileInterval(
+  groupCount: number,
+  options: BootstrapOptions,
+  resampled: (pick: () => number) => number,
 ): { lower: number; upper: number; resamples: number } {
   const resamples = options.resamples ?? 1000;
   const level = options.level ?? 0.9;
-  const pick = randomInt.source(randomLcg(options.seed ?? 1))(groups.length);
+  const pick = randomInt.source(randomLcg(options.seed ?? 1))(groupCount);
   const values: number[] = [];
   for (let r = 0; r < resamples; r++) {
-    const indices: number[] = [];
-    for (let g = 0; g < groups.length; g++) for (const i of groups[pick()]) indices.push(i);
-    const v = statistic(indices);
+    const v = resampled(pick);
     if (Number.isFinite(v)) values.push(v);
   }
   values.sort((a, b) => a - b);
