@@ -98,8 +98,11 @@ describe('bulletins on the demo season', () => {
     const kinds = new Set(saved.warnings.map((w) => `${w.kind}@${w.where}`));
     expect(kinds).toContain('dry-wording@summary');
     expect(kinds).toContain('afternoon-work@generalAdvice');
-    // The drafted crop advice still carries the lightning rule's text, so no block lacks lightning advice.
-    expect(saved.warnings.filter((w) => w.kind === 'no-lightning-advice')).toEqual([]);
+    // The lightning rule's text was in the general advice, now replaced: every high-chance block is named.
+    const high = saved.content.outlook
+      .filter((b) => (b.afternoonChance ?? 0) >= 0.4)
+      .map((b) => `outlook[${b.blockCode}]`);
+    expect(saved.warnings.filter((w) => w.kind === 'no-lightning-advice').map((w) => w.where)).toEqual(high);
   });
 
   it('freezes the content at approval: later data change the outlook, not the bulletin', async () => {
