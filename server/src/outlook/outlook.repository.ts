@@ -1,5 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { DATABASE, type DatabaseHandle } from '../database/database.js';
+import { type ScanHours, scanHoursFromDays } from './engine/scan-hours.js';
 
 export interface TimeRange {
   /** UTC ms, inclusive start and exclusive end; null = unbounded. */
@@ -100,21 +101,26 @@ export class OutlookRepository {
   }
 
   /**
-   * Scan times from the given sources (UTC ms), sorted, each once. Sorted and deduplicated here rather
-   * than by the database: a season of 30 000 scans per source is quicker to sort as a typed array.
+   * Scans per local hour of each local day (the site's offset) that the counted source could have seen,
+   * from the summary the database keeps as scans are stored (table scan_hours): a row per day, not per scan.
    */
-  async scanTimes(siteId: number, sources: string[], r: TimeRange): Promise<Float64Array> {
-    const t = range(r, 'time', 3);
-    const res = await this.handle.pg.query<{ t: Uint8Array | null }>(
-      `select string_agg(float8send(date_part('epoch', time) * 1000), ''::bytea) as t from scans
-       where site_id = $1 and source = any($2::text[])${t.sql}`,
-      [siteId, sources, ...t.params],
+  async scanHours(
+    siteId: number,
+    source: string,
+    days: { from: number | null; to: number | null },
+  ): Promise<ScanHours> {
+    const params: unknown[] = [siteId, source];
+    let where = '';
+    if (days.from !== null) where += ` and local_day >= $${params.push(days.from)}`;
+    if (days.to !== null) where += ` and local_day <= $${params.push(days.to)}`;
+    const res = await this.handle.pg.query<{ local_day: number; scans: number[] }>(
+      `select local_day, scans from scan_hours where site_id = $1 and source = $2${where} order by local_day`,
+      params,
     );
-    const times = wholeMs(unpackFloat64(res.rows[0]?.t ?? null)).sort();
-    let kept = 0;
-    for (let i = 0; i < times.length; i++)
-      if (i === 0 || times[i] !== times[kept - 1]) times[kept++] = times[i];
-    return times.slice(0, kept);
+    return scanHoursFromDays(
+      res.rows.map((r) => r.local_day),
+      res.rows.map((r) => r.scans),
+    );
   }
 
   /**

@@ -17,6 +17,7 @@ import { RegionsRepository } from '../regions/regions.repository.js';
 import { areaAndPerimeter, bufferedAreaKm2, coverageFraction, toPlane } from './engine/block-coverage.js';
 import { blocksWithin, ownBlock } from './engine/neighbourhood.js';
 import { computeOutlook, type OutlookResult } from './engine/outlook.js';
+import { type ScanHours, scannedDays } from './engine/scan-hours.js';
 import { type EventColumns, OutlookRepository, type TimeRange } from './outlook.repository.js';
 import { outlookCsv } from './outlook-csv.js';
 
@@ -108,10 +109,10 @@ export class OutlookService {
     const source = (q.source ?? sources[0]?.source ?? 'cell-table') as OutlookSource;
     const data = await this.load(q, source, range, version);
 
-    // The period: as asked, or from the first to the last scan the source could have seen.
-    const scans = data.scanTimes;
-    const firstDay = q.from ? dayOfDate(q.from) : scans.length ? localDay(scans[0], offset) : null;
-    const lastDay = q.to ? dayOfDate(q.to) : scans.length ? localDay(scans[scans.length - 1], offset) : null;
+    // The period: as asked, or from the first to the last day with a scan the source could have seen.
+    const scanned = scannedDays(data.scanHours);
+    const firstDay = q.from ? dayOfDate(q.from) : (scanned?.first ?? null);
+    const lastDay = q.to ? dayOfDate(q.to) : (scanned?.last ?? null);
     const allDays: number[] = [];
     if (firstDay !== null && lastDay !== null) for (let d = firstDay; d <= lastDay; d++) allDays.push(d);
     const from = firstDay === null ? null : dateOfDay(firstDay);
@@ -135,7 +136,7 @@ export class OutlookService {
       blocks: data.blocks.map((b) => ({ coverage: b.coverage, countingAreaKm2: b.countingAreaKm2 })),
       eventTimes: data.events.time,
       eventBlocks: data.eventBlocks,
-      scanTimes: scans,
+      scanHours: data.scanHours,
       utcOffsetMinutes: offset,
       intervalMin: site.intervalMin,
       binHours: q.binHours,
@@ -258,11 +259,12 @@ export class OutlookService {
   private async loadFresh(q: OutlookQuery, source: OutlookSource, range: TimeRange): Promise<Loaded> {
     const site = await this.sites.get(q.siteId);
     const plane = sitePlane(site);
-    // Starts are judged against the scans a source could have seen (as the onset rules do): a cell
-    // table with the scan inventory, a volume or column-maximum run with its own scans only.
-    const scanSources = source === 'cell-table' ? ['scan-inventory', 'cell-table'] : [source];
-    const [scanTimes, events, stored] = await Promise.all([
-      this.repo.scanTimes(q.siteId, scanSources, range),
+    // Availability is judged against the scans a source could have seen (as the onset rules do): a
+    // cell table with the scan inventory, a volume or column-maximum run with its own scans only. The
+    // database keeps those counts per local hour as scans are stored.
+    const days = { from: q.from ? dayOfDate(q.from) : null, to: q.to ? dayOfDate(q.to) : null };
+    const [scanHours, events, stored] = await Promise.all([
+      this.repo.scanHours(q.siteId, source, days),
       q.measure === 'onsets'
         ? this.repo.onsets(q.siteId, source, range)
         : this.repo.stormCells(q.siteId, source, range),
@@ -285,7 +287,7 @@ export class OutlookService {
       const [x, y] = q.measure === 'onsets' ? project(events, plane) : [events.a, events.b];
       eventBlocks = blocksWithin(x, y, inPlane, q.radiusKm);
     }
-    return { scanTimes, events, eventBlocks, blocks };
+    return { scanHours, events, eventBlocks, blocks };
   }
 }
 
@@ -297,7 +299,7 @@ interface RegimeList {
 }
 
 interface Loaded {
-  scanTimes: Float64Array;
+  scanHours: ScanHours;
   events: EventColumns;
   eventBlocks: ReturnType<typeof ownBlock>;
   blocks: (Awaited<ReturnType<RegionsRepository['listBlocksWithGeometry']>>[number] & {

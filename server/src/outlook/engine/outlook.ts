@@ -2,6 +2,7 @@ import type { IntervalMethod, OutlookFigure, OutlookWeek } from '@stormhour/shar
 import { DAY_MS, HOUR_MS } from '../../radar/engine/local-time.js';
 import { binomialInterval } from './intervals.js';
 import type { EventBlocks } from './neighbourhood.js';
+import type { ScanHours } from './scan-hours.js';
 import { type BetaPrior, fitBetaPrior, shrunkRate } from './shrinkage.js';
 import { weekWindows } from './weekly.js';
 
@@ -17,8 +18,8 @@ export interface OutlookInput {
   /** Event times (onset or cell scan, UTC ms) and the blocks each counts for. */
   eventTimes: Float64Array;
   eventBlocks: EventBlocks;
-  /** The scans the counted source could have seen (UTC ms); availability is their share of those expected. */
-  scanTimes: Float64Array;
+  /** Scans per local day and hour the counted source could have seen; availability is their share of those expected. */
+  scanHours: ScanHours;
   /** Local day numbers (days since 1970-01-01) of the days asked about, ascending. */
   days: Int32Array;
   utcOffsetMinutes: number;
@@ -92,10 +93,12 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
   };
 
   // Availability: scans present per local day and hour, against those expected.
-  const scansByHour = new Uint16Array(dayCount * 24);
-  for (let s = 0; s < input.scanTimes.length; s++) {
-    const p = positionOf(input.scanTimes[s]);
-    if (p >= 0) scansByHour[p * 24 + hourOf]++;
+  const scansByHour = new Int32Array(dayCount * 24);
+  const { scanHours } = input;
+  for (let p = 0; p < dayCount; p++) {
+    const d = days[p] - scanHours.firstDay;
+    if (d >= 0 && d < scanHours.dayCount)
+      scansByHour.set(scanHours.counts.subarray(d * 24, d * 24 + 24), p * 24);
   }
   const perHour = 60 / input.intervalMin;
   const available = (p: number, from: number, to: number) => {
