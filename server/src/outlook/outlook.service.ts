@@ -9,7 +9,7 @@ import {
   type OutlookResponse,
   type OutlookSource,
 } from '@stormhour/shared';
-import { dateOfDay, dayOfDate, localDay, localMidnightUtc } from '../radar/engine/local-time.js';
+import { dateOfDay, dayOfDate, localMidnightUtc } from '../radar/engine/local-time.js';
 import { sitePlane } from '../radar/engine/site-plane.js';
 import { SitesService } from '../radar/sites.service.js';
 import { RegimesService } from '../regimes/regimes.service.js';
