@@ -38,6 +38,11 @@ const range = (r: TimeRange, column: string, first: number) => {
 export class OutlookRepository {
   constructor(@Inject(DATABASE) private readonly handle: DatabaseHandle) {}
 
+  /** This process's count of writes to the database (see wrap()): unchanged means nothing was written. */
+  writeCount(): number {
+    return this.handle.writes();
+  }
+
   /**
    * Moves on whenever any transaction that wrote anything has ended (the next transaction id to be
    * assigned: read-only statements get none). One function call, no table read.

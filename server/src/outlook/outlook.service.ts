@@ -39,6 +39,11 @@ interface Entry {
 const MAX_ANSWERS = 48;
 /** Loaded columns (events and scans of a site, source and period) reused across regimes and bins. */
 const MAX_LOADS = 6;
+/**
+ * How often, at most, the database's own write mark is asked as well as this process's write counter:
+ * a safety net for a write the counter cannot see (a SELECT calling a function that writes).
+ */
+const DB_MARK_CHECK_MS = 1000;
 
 const round = (v: number | null) => (v === null ? null : Math.round(v * 1e6) / 1e6);
 
@@ -47,15 +52,15 @@ const round = (v: number | null) => (v === null ? null : Math.round(v * 1e6) / 1
  * request, against a fingerprint of the data they were made from (OutlookRepository.dataVersion): new
  * tracks, cells, scans, anomaly fields, finished jobs, settings, blocks or site changes give a new
  * fingerprint and the next request computes afresh. The fingerprint itself is read again only after
- * some transaction has written (the write mark moved), so a cached answer costs one trivial query;
- * no other module needs to remember to invalidate anything.
+ * something may have been written (this process's write counter or the database's write mark moved),
+ * so a cached answer costs no query; no other module needs to remember to invalidate anything.
  */
 @Injectable()
 export class OutlookService {
   private readonly answers = new Map<string, Entry>();
   private readonly loads = new Map<string, { version: string; data: Promise<Loaded> }>();
   /** Fingerprints per site, valid while nothing has been written since they were read. */
-  private fingerprints = { mark: '', bySite: new Map<number, string | null>() };
+  private fingerprints = { mark: '', writes: -1, checkedAt: 0, bySite: new Map<number, string | null>() };
   private readonly sourceCounts = new Map<string, { version: string; counts: Promise<SourceCount[]> }>();
   private readonly regimeDays = new Map<string, { version: string; days: Promise<RegimeList> }>();
 
@@ -85,16 +90,26 @@ export class OutlookService {
   }
 
   /**
-   * The site's data fingerprint. While no transaction has written anything since it was read (the
-   * database's write mark is unchanged), it cannot have changed and is not read again.
+   * The site's data fingerprint. It is read again only after something may have been written: this
+   * process's write counter moved, or (checked at most every DB_MARK_CHECK_MS, for writes the counter
+   * cannot see) the database's write mark moved. A cached answer thus usually costs no query at all.
    */
   private async fingerprint(siteId: number): Promise<string | null> {
-    const mark = await this.repo.writeMark();
-    if (mark !== this.fingerprints.mark) this.fingerprints = { mark, bySite: new Map() };
-    const known = this.fingerprints.bySite.get(siteId);
+    // Read before awaiting anything: a write landing meanwhile moves the counter past this value,
+    // so whatever is read now is read again at the next request.
+    const writes = this.repo.writeCount();
+    const now = Date.now();
+    if (writes !== this.fingerprints.writes || now - this.fingerprints.checkedAt >= DB_MARK_CHECK_MS) {
+      const mark = await this.repo.writeMark();
+      if (mark !== this.fingerprints.mark || writes !== this.fingerprints.writes)
+        this.fingerprints = { mark, writes, checkedAt: now, bySite: new Map() };
+      else this.fingerprints.checkedAt = now;
+    }
+    const { bySite } = this.fingerprints;
+    const known = bySite.get(siteId);
     if (known !== undefined) return known;
     const version = await this.repo.dataVersion(siteId);
-    this.fingerprints.bySite.set(siteId, version);
+    bySite.set(siteId, version);
     return version;
   }
 
