@@ -1,4 +1,4 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, it, vi } from 'vitest';
 import { createTestApp, type TestApp } from '../testing/test-app.js';
 import { SESSION_USER_TTL_MS } from '../users/users.repository.js';
 

@@ -55,16 +55,18 @@ export class OutlookRepository {
   }
 
   /**
-   * A cheap fingerprint of everything an outlook depends on: the newest ids of tracks, cells, scans,
-   * anomaly fields and settings versions, the last finished job (onsets are re-decided and anomaly
-   * fields replaced in place by jobs), the blocks and districts, and the site's own row.
+   * A cheap fingerprint of everything an outlook depends on: the newest ids of tracks, cells, anomaly
+   * fields and settings versions; the site's scans per hour as counted (so removed scans are seen too);
+   * the last finished job (onsets are re-decided and anomaly fields replaced in place by jobs); the
+   * blocks and districts, and the site's own row.
    * Null when the site does not exist.
    */
   async dataVersion(siteId: number): Promise<string | null> {
     const res = await this.handle.pg.query<{ v: string | null }>(
       `select (select md5(r::text) from radar_sites r where r.id = $1) || '|' ||
         (select coalesce(max(id), 0) from tracks) || '|' || (select coalesce(max(id), 0) from cells) || '|' ||
-        (select coalesce(max(id), 0) from scans) || '|' || (select coalesce(max(id), 0) from anomaly_fields) || '|' ||
+        (select coalesce(md5(string_agg(source || local_day || scans::text, ',' order by source, local_day)), '')
+           from scan_hours where site_id = $1) || '|' || (select coalesce(max(id), 0) from anomaly_fields) || '|' ||
         (select coalesce(max(id), 0) from site_settings) || '|' || (select coalesce(max(id), 0) from regime_settings) || '|' ||
         (select coalesce(max(finished_at)::text, '') || count(*) from jobs) || '|' ||
         (select coalesce(max(updated_at)::text, '') || count(*) || coalesce(max(id), 0) from blocks) || '|' ||
