@@ -170,7 +170,7 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
         xAfternoon[b] += hit;
       }
     }
-    weeks.push(weekFigure(hits, interval, level));
+    weeks.push(weekFigure(hits, interval, level, input.withIntervals !== false));
   }
 
   const binPriors: BetaPrior[] = [];
@@ -233,10 +233,16 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
  * Windows overlap, so they are not independent trials: the interval is drawn as if from the
  * ⌊days / 7⌋ separate weeks the record holds, at the windows' hit rate (rounded to whole weeks).
  */
-function weekFigure(hitByDay: Uint8Array, method: IntervalMethod, level: number): OutlookWeek {
+function weekFigure(
+  hitByDay: Uint8Array,
+  method: IntervalMethod,
+  level: number,
+  withInterval: boolean,
+): OutlookWeek {
   const { windows, hits } = weekWindows(hitByDay);
   if (windows === 0) return { windows, hits, rate: null, lower: null, upper: null };
   const rate = hits / windows;
+  if (!withInterval) return { windows, hits, rate, lower: null, upper: null };
   const weeks = Math.floor(hitByDay.length / 7);
   const ci = binomialInterval(method, Math.round(rate * weeks), weeks, level);
   return { windows, hits, rate, lower: ci?.lower ?? null, upper: ci?.upper ?? null };
