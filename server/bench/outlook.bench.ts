@@ -60,7 +60,9 @@ const all = { from: null, to: null };
 console.log('parts of a cold outlook:');
 await timed('data fingerprint (one query)', () => repo.dataVersion(siteId));
 await timed('onsets per source (GROUP BY)', () => repo.onsetsBySource(siteId, all));
-await timed('scan times, 10 seasons', () => repo.scanTimes(siteId, ['scan-inventory', 'cell-table'], all));
+await timed('scans per local hour, 10 seasons (scan_hours)', () =>
+  repo.scanHours(siteId, 'cell-table', { from: null, to: null }),
+);
 await timed('onset columns, 50 000 tracks', () => repo.onsets(siteId, 'cell-table', all));
 await timed('regimes of 1 220 days', () => app.get(RegimesService).regimes(siteId));
 

@@ -108,7 +108,7 @@ export class AuthService {
 
   /** Checks a verified token's claims against the stored user; used by the JWT strategy. */
   async userForToken(payload: AccessTokenPayload): Promise<SessionUser> {
-    const user = await this.users.findById(payload.sub);
+    const user = await this.users.findForSession(payload.sub);
     if (!user?.active || user.tokenVersion !== payload.ver) {
       throw new UnauthorizedException('This session is no longer valid: sign in again.');
     }

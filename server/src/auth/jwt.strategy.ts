@@ -1,3 +1,4 @@
+import { createSecretKey } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { PassportStrategy } from '@nestjs/passport';
 import type { SessionUser } from '@stormhour/shared';
@@ -13,7 +14,10 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
   ) {
     super({
       jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
-      secretOrKey: config.jwtSecret,
+      // A key object, not the string: given a string or a Buffer, jsonwebtoken first tries to read it
+      // as a public key and catches the failure, on every request (over a millisecond each, most of a
+      // cached answer's cost). jsonwebtoken takes a KeyObject; passport-jwt's types only say so narrowly.
+      secretOrKey: createSecretKey(Buffer.from(config.jwtSecret)) as unknown as Buffer,
       algorithms: ['HS256'],
       ignoreExpiration: false,
     });

@@ -16,6 +16,7 @@ import {
   integer,
   jsonb,
   pgTable,
+  primaryKey,
   serial,
   text,
   timestamp,
@@ -196,6 +197,28 @@ export const scans = pgTable(
     uniqueIndex('scans_site_source_time_idx').on(t.siteId, t.source, t.time),
     index('scans_site_time_idx').on(t.siteId, t.time),
   ],
+);
+
+/**
+ * Distinct scans per local hour of each local day (in the site's UTC offset), per counted source: what
+ * the outlook judges availability against, so it never reads the scans themselves. 'cell-table' counts
+ * the inventory's and the cell tables' scans together (a time both give counts once); 'volume' and
+ * 'column-max' their own. Kept by statement triggers on `scans` (and on a site's offset changing) in
+ * the same transaction as the scans they count: see drizzle/0008_scan_hours_upkeep.sql.
+ */
+export const scanHours = pgTable(
+  'scan_hours',
+  {
+    siteId: integer('site_id')
+      .notNull()
+      .references(() => radarSites.id, { onDelete: 'cascade' }),
+    source: text('source', { enum: ['cell-table', 'volume', 'column-max'] }).notNull(),
+    /** Days since 1970-01-01 in the site's local time. */
+    localDay: integer('local_day').notNull(),
+    /** 24 counts, local hours 0–23. */
+    scans: integer('scans').array().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.siteId, t.source, t.localDay] })],
 );
 
 export const tracks = pgTable(

@@ -9,7 +9,7 @@ import {
   type OutlookResponse,
   type OutlookSource,
 } from '@stormhour/shared';
-import { dateOfDay, dayOfDate, localDay, localMidnightUtc } from '../radar/engine/local-time.js';
+import { dateOfDay, dayOfDate, localMidnightUtc } from '../radar/engine/local-time.js';
 import { sitePlane } from '../radar/engine/site-plane.js';
 import { SitesService } from '../radar/sites.service.js';
 import { RegimesService } from '../regimes/regimes.service.js';
@@ -17,6 +17,7 @@ import { RegionsRepository } from '../regions/regions.repository.js';
 import { areaAndPerimeter, bufferedAreaKm2, coverageFraction, toPlane } from './engine/block-coverage.js';
 import { blocksWithin, ownBlock } from './engine/neighbourhood.js';
 import { type AfternoonDaily, computeOutlook, type OutlookResult } from './engine/outlook.js';
+import { type ScanHours, scannedDays } from './engine/scan-hours.js';
 import { type EventColumns, OutlookRepository, type TimeRange } from './outlook.repository.js';
 import { outlookCsv } from './outlook-csv.js';
 
@@ -38,6 +39,11 @@ interface Entry {
 const MAX_ANSWERS = 48;
 /** Loaded columns (events and scans of a site, source and period) reused across regimes and bins. */
 const MAX_LOADS = 6;
+/**
+ * How often, at most, the database's own write mark is asked as well as this process's write counter:
+ * a safety net for a write the counter cannot see (a SELECT calling a function that writes).
+ */
+const DB_MARK_CHECK_MS = 1000;
 
 const round = (v: number | null) => (v === null ? null : Math.round(v * 1e6) / 1e6);
 
@@ -46,15 +52,15 @@ const round = (v: number | null) => (v === null ? null : Math.round(v * 1e6) / 1
  * request, against a fingerprint of the data they were made from (OutlookRepository.dataVersion): new
  * tracks, cells, scans, anomaly fields, finished jobs, settings, blocks or site changes give a new
  * fingerprint and the next request computes afresh. The fingerprint itself is read again only after
- * some transaction has written (the write mark moved), so a cached answer costs one trivial query;
- * no other module needs to remember to invalidate anything.
+ * something may have been written (this process's write counter or the database's write mark moved),
+ * so a cached answer costs no query; no other module needs to remember to invalidate anything.
  */
 @Injectable()
 export class OutlookService {
   private readonly answers = new Map<string, Entry>();
   private readonly loads = new Map<string, { version: string; data: Promise<Loaded> }>();
   /** Fingerprints per site, valid while nothing has been written since they were read. */
-  private fingerprints = { mark: '', bySite: new Map<number, string | null>() };
+  private fingerprints = { mark: '', writes: -1, checkedAt: 0, bySite: new Map<number, string | null>() };
   private readonly sourceCounts = new Map<string, { version: string; counts: Promise<SourceCount[]> }>();
   private readonly regimeDays = new Map<string, { version: string; days: Promise<RegimeList> }>();
 
@@ -93,16 +99,26 @@ export class OutlookService {
   }
 
   /**
-   * The site's data fingerprint. While no transaction has written anything since it was read (the
-   * database's write mark is unchanged), it cannot have changed and is not read again.
+   * The site's data fingerprint. It is read again only after something may have been written: this
+   * process's write counter moved, or (checked at most every DB_MARK_CHECK_MS, for writes the counter
+   * cannot see) the database's write mark moved. A cached answer thus usually costs no query at all.
    */
   private async fingerprint(siteId: number): Promise<string | null> {
-    const mark = await this.repo.writeMark();
-    if (mark !== this.fingerprints.mark) this.fingerprints = { mark, bySite: new Map() };
-    const known = this.fingerprints.bySite.get(siteId);
+    // Read before awaiting anything: a write landing meanwhile moves the counter past this value,
+    // so whatever is read now is read again at the next request.
+    const writes = this.repo.writeCount();
+    const now = Date.now();
+    if (writes !== this.fingerprints.writes || now - this.fingerprints.checkedAt >= DB_MARK_CHECK_MS) {
+      const mark = await this.repo.writeMark();
+      if (mark !== this.fingerprints.mark || writes !== this.fingerprints.writes)
+        this.fingerprints = { mark, writes, checkedAt: now, bySite: new Map() };
+      else this.fingerprints.checkedAt = now;
+    }
+    const { bySite } = this.fingerprints;
+    const known = bySite.get(siteId);
     if (known !== undefined) return known;
     const version = await this.repo.dataVersion(siteId);
-    this.fingerprints.bySite.set(siteId, version);
+    bySite.set(siteId, version);
     return version;
   }
 
@@ -128,7 +144,7 @@ export class OutlookService {
       blocks: data.blocks.map((b) => ({ coverage: b.coverage, countingAreaKm2: b.countingAreaKm2 })),
       eventTimes: data.events.time,
       eventBlocks: data.eventBlocks,
-      scanTimes: data.scanTimes,
+      scanHours: data.scanHours,
       utcOffsetMinutes: offset,
       intervalMin: site.intervalMin,
       binHours: q.binHours,
@@ -160,10 +176,10 @@ export class OutlookService {
     const source = (q.source ?? sources[0]?.source ?? 'cell-table') as OutlookSource;
     const data = await this.load(q, source, range, version);
 
-    // The period: as asked, or from the first to the last scan the source could have seen.
-    const scans = data.scanTimes;
-    const firstDay = q.from ? dayOfDate(q.from) : scans.length ? localDay(scans[0], offset) : null;
-    const lastDay = q.to ? dayOfDate(q.to) : scans.length ? localDay(scans[scans.length - 1], offset) : null;
+    // The period: as asked, or from the first to the last day with a scan the source could have seen.
+    const scanned = scannedDays(data.scanHours);
+    const firstDay = q.from ? dayOfDate(q.from) : (scanned?.first ?? null);
+    const lastDay = q.to ? dayOfDate(q.to) : (scanned?.last ?? null);
     const allDays: number[] = [];
     if (firstDay !== null && lastDay !== null) for (let d = firstDay; d <= lastDay; d++) allDays.push(d);
     const from = firstDay === null ? null : dateOfDay(firstDay);
@@ -187,7 +203,7 @@ export class OutlookService {
       blocks: data.blocks.map((b) => ({ coverage: b.coverage, countingAreaKm2: b.countingAreaKm2 })),
       eventTimes: data.events.time,
       eventBlocks: data.eventBlocks,
-      scanTimes: scans,
+      scanHours: data.scanHours,
       utcOffsetMinutes: offset,
       intervalMin: site.intervalMin,
       binHours: q.binHours,
@@ -310,11 +326,12 @@ export class OutlookService {
   private async loadFresh(q: OutlookQuery, source: OutlookSource, range: TimeRange): Promise<Loaded> {
     const site = await this.sites.get(q.siteId);
     const plane = sitePlane(site);
-    // Starts are judged against the scans a source could have seen (as the onset rules do): a cell
-    // table with the scan inventory, a volume or column-maximum run with its own scans only.
-    const scanSources = source === 'cell-table' ? ['scan-inventory', 'cell-table'] : [source];
-    const [scanTimes, events, stored] = await Promise.all([
-      this.repo.scanTimes(q.siteId, scanSources, range),
+    // Availability is judged against the scans a source could have seen (as the onset rules do): a
+    // cell table with the scan inventory, a volume or column-maximum run with its own scans only. The
+    // database keeps those counts per local hour as scans are stored.
+    const days = { from: q.from ? dayOfDate(q.from) : null, to: q.to ? dayOfDate(q.to) : null };
+    const [scanHours, events, stored] = await Promise.all([
+      this.repo.scanHours(q.siteId, source, days),
       q.measure === 'onsets'
         ? this.repo.onsets(q.siteId, source, range)
         : this.repo.stormCells(q.siteId, source, range),
@@ -337,7 +354,7 @@ export class OutlookService {
       const [x, y] = q.measure === 'onsets' ? project(events, plane) : [events.a, events.b];
       eventBlocks = blocksWithin(x, y, inPlane, q.radiusKm);
     }
-    return { scanTimes, events, eventBlocks, blocks };
+    return { scanHours, events, eventBlocks, blocks };
   }
 }
 
@@ -357,7 +374,7 @@ interface RegimeList {
 }
 
 interface Loaded {
-  scanTimes: Float64Array;
+  scanHours: ScanHours;
   events: EventColumns;
   eventBlocks: ReturnType<typeof ownBlock>;
   blocks: (Awaited<ReturnType<RegionsRepository['listBlocksWithGeometry']>>[number] & {

@@ -1,6 +1,7 @@
 import type { OutlookBlock, OutlookResponse } from '@stormhour/shared';
 import Papa from 'papaparse';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { dayOfDate, HOUR_MS, localMidnightUtc } from '../radar/engine/local-time.js';
 import { loadDemoSeason } from '../testing/demo-season.js';
 import { createTestApp, type TestApp } from '../testing/test-app.js';
 
@@ -129,6 +130,61 @@ describe('GET /api/outlook on the demo season', () => {
       .set(auth)
       .send({ settings: { minAvailability: 0.8 } })
       .expect(200);
+  });
+
+  it('gives new numbers at the next request after scans are removed, and the old ones once they are back', async () => {
+    const get = async () => (await t.http.get('/api/outlook').query({ siteId }).set(auth).expect(200)).body;
+    const before: OutlookResponse = await get();
+    // Every scan of 10 June 12:00–15:00 local (bin 4) goes: that day no longer counts in that bin.
+    const from = localMidnightUtc(dayOfDate('2025-06-10'), before.utcOffsetMinutes) + 12 * HOUR_MS;
+    const window = [siteId, new Date(from).toISOString(), new Date(from + 3 * HOUR_MS).toISOString()];
+    const { rows: site } = await t.db.pg.query<{ interval_min: number }>(
+      'select interval_min from radar_sites where id = $1',
+      [siteId],
+    );
+    const removed = await t.db.pg.query<{ source: string; time: Date; upload_id: number | null }>(
+      'delete from scans where site_id = $1 and time >= $2 and time < $3 returning source, time, upload_id',
+      window,
+    );
+    // The day counted in that bin before (at least 80 % of the expected scans: DESIGN §3.5).
+    const distinct = new Set(removed.rows.map((r) => r.time.getTime())).size;
+    expect(distinct).toBeGreaterThanOrEqual((0.8 * 3 * 60) / site[0].interval_min);
+    const after: OutlookResponse = await get();
+    expect(after.blocks[0].bins[4].n).toBe((before.blocks[0].bins[4].n as number) - 1);
+    expect(after.blocks[0].bins[0].n).toBe(before.blocks[0].bins[0].n);
+
+    const restore = () =>
+      t.db.pg.query(
+        `insert into scans (site_id, source, time, upload_id)
+         select $1, u.source, u.time, u.upload_id from unnest($2::text[], $3::timestamptz[], $4::int[]) as u(source, time, upload_id)`,
+        [
+          siteId,
+          removed.rows.map((r) => r.source),
+          removed.rows.map((r) => r.time.toISOString()),
+          removed.rows.map((r) => r.upload_id),
+        ],
+      );
+    await restore();
+    expect(await get()).toEqual(before);
+
+    // A write this process's counter cannot see (a SELECT calling a function that deletes) is seen once
+    // the database's own write mark is checked again, at most a second later.
+    vi.useFakeTimers({ toFake: ['Date'] });
+    try {
+      await get();
+      await t.db.pg.query(
+        `create function outlook_spec_remove(p_site int, p_from timestamptz, p_to timestamptz) returns void
+         language sql as 'delete from scans where site_id = p_site and time >= p_from and time < p_to'`,
+      );
+      await get();
+      await t.db.pg.query('select outlook_spec_remove($1, $2, $3)', window);
+      vi.advanceTimersByTime(1001);
+      expect((await get()).blocks[0].bins[4].n).toBe((before.blocks[0].bins[4].n as number) - 1);
+    } finally {
+      vi.useRealTimers();
+    }
+    await restore();
+    expect(await get()).toEqual(before);
   });
 
   it('exports the table as CSV, one row per block and bin', async () => {

@@ -3,6 +3,7 @@ import { dayOfDate, HOUR_MS, localDay, localHour, localMidnightUtc } from '../..
 import { jeffreysInterval } from './intervals.js';
 import { ownBlock } from './neighbourhood.js';
 import { computeOutlook, type OutlookInput } from './outlook.js';
+import { countScanHours } from './scan-hours.js';
 
 /** Hourly scans at half past every local hour of the given days, minus the hours listed as outages. */
 function hourlyScans(days: number[], offset: number, outages: [day: number, hour: number][] = []) {
@@ -11,7 +12,7 @@ function hourlyScans(days: number[], offset: number, outages: [day: number, hour
     for (let h = 0; h < 24; h++)
       if (!outages.some(([od, oh]) => od === d && oh === h))
         out.push(localMidnightUtc(d, offset) + h * HOUR_MS + 30 * 60_000);
-  return Float64Array.from(out);
+  return countScanHours(out, offset);
 }
 
 const at = (day: number, offset: number, hour: number, minute = 0) =>
@@ -40,7 +41,7 @@ describe('counting the outlook on a hand-made record', () => {
     ],
     eventTimes: Float64Array.from(events.map(([, d, h, m]) => at(d, offset, h, m))),
     eventBlocks: ownBlock(Int32Array.from(events.map(([b]) => b))),
-    scanTimes: hourlyScans(days, offset, [[d0 + 1, 15]]),
+    scanHours: hourlyScans(days, offset, [[d0 + 1, 15]]),
     days: Int32Array.from(selected),
     utcOffsetMinutes: offset,
     intervalMin: 60,
@@ -119,7 +120,7 @@ describe('local time', () => {
       blocks: [{ coverage: 1, countingAreaKm2: 100 }],
       eventTimes: Float64Array.from([before, atMidnight]),
       eventBlocks: ownBlock(Int32Array.from([0, 0])),
-      scanTimes: hourlyScans([d0, d0 + 1], offset),
+      scanHours: hourlyScans([d0, d0 + 1], offset),
       days: Int32Array.from([d0, d0 + 1]),
       utcOffsetMinutes: offset,
       intervalMin: 60,

@@ -2,6 +2,7 @@ import type { IntervalMethod, OutlookFigure, OutlookWeek } from '@stormhour/shar
 import { DAY_MS, HOUR_MS } from '../../radar/engine/local-time.js';
 import { binomialInterval } from './intervals.js';
 import type { EventBlocks } from './neighbourhood.js';
+import type { ScanHours } from './scan-hours.js';
 import { type BetaPrior, fitBetaPrior, shrunkRate } from './shrinkage.js';
 import { weekWindows } from './weekly.js';
 
@@ -17,8 +18,8 @@ export interface OutlookInput {
   /** Event times (onset or cell scan, UTC ms) and the blocks each counts for. */
   eventTimes: Float64Array;
   eventBlocks: EventBlocks;
-  /** The scans the counted source could have seen (UTC ms); availability is their share of those expected. */
-  scanTimes: Float64Array;
+  /** Scans per local day and hour the counted source could have seen; availability is their share of those expected. */
+  scanHours: ScanHours;
   /** Local day numbers (days since 1970-01-01) of the days asked about, ascending. */
   days: Int32Array;
   utcOffsetMinutes: number;
@@ -106,10 +107,12 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
   };
 
   // Availability: scans present per local day and hour, against those expected.
-  const scansByHour = new Uint16Array(dayCount * 24);
-  for (let s = 0; s < input.scanTimes.length; s++) {
-    const p = positionOf(input.scanTimes[s]);
-    if (p >= 0) scansByHour[p * 24 + hourOf]++;
+  const scansByHour = new Int32Array(dayCount * 24);
+  const { scanHours } = input;
+  for (let p = 0; p < dayCount; p++) {
+    const d = days[p] - scanHours.firstDay;
+    if (d >= 0 && d < scanHours.dayCount)
+      scansByHour.set(scanHours.counts.subarray(d * 24, d * 24 + 24), p * 24);
   }
   const perHour = 60 / input.intervalMin;
   const available = (p: number, from: number, to: number) => {
@@ -181,7 +184,7 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
         xAfternoon[b] += hit;
       }
     }
-    weeks.push(weekFigure(hits, interval, level));
+    weeks.push(weekFigure(hits, interval, level, input.withIntervals !== false));
   }
 
   const binPriors: BetaPrior[] = [];
@@ -254,10 +257,16 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
  * Windows overlap, so they are not independent trials: the interval is drawn as if from the
  * ⌊days / 7⌋ separate weeks the record holds, at the windows' hit rate (rounded to whole weeks).
  */
-function weekFigure(hitByDay: Uint8Array, method: IntervalMethod, level: number): OutlookWeek {
+function weekFigure(
+  hitByDay: Uint8Array,
+  method: IntervalMethod,
+  level: number,
+  withInterval: boolean,
+): OutlookWeek {
   const { windows, hits } = weekWindows(hitByDay);
   if (windows === 0) return { windows, hits, rate: null, lower: null, upper: null };
   const rate = hits / windows;
+  if (!withInterval) return { windows, hits, rate, lower: null, upper: null };
   const weeks = Math.floor(hitByDay.length / 7);
   const ci = binomialInterval(method, Math.round(rate * weeks), weeks, level);
   return { windows, hits, rate, lower: ci?.lower ?? null, upper: ci?.upper ?? null };
