@@ -105,6 +105,7 @@ export interface ScorecardView {
   from: string;
   to: string;
   source: ScorecardSource;
+  /** Sent bulletins with at least one scored day: a day inside the period that has ended. */
   bulletins: number;
   pairs: number;
   days: number;
@@ -120,7 +121,10 @@ export interface ScorecardView {
   reliability: ReliabilityRow[];
   /** Bins with fewer pairs than this are marked few. */
   fewCases: number;
-  /** ROC points from the highest issued chance down; the curve starts at (0, 0), not listed. */
+  /**
+   * ROC points, one per distinct issued chance as the "yes" threshold, lowest chance first (from (1, 1)
+   * towards (0, 0)); the curve's end at (0, 0) is not listed.
+   */
   roc: { points: { threshold: number; hitRate: number; falseAlarmRate: number }[]; area: number | null };
   rocAreaInterval: ScoreInterval | null;
   thresholds: ThresholdScores[];

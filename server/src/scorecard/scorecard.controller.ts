@@ -35,8 +35,8 @@ export class ScorecardController {
   @Get('scorecard.csv')
   @Roles('scientist', 'admin')
   async csv(@Query(zodQuery(ScorecardQuery)) q: ScorecardParams, @Res() res: Response) {
-    const { pairs } = await this.scorecards.scorecard({ ...q, resamples: 0 });
-    res.setHeader('Content-Disposition', `attachment; filename="${fileName(q, 'csv')}"`);
+    const { view, pairs } = await this.scorecards.scorecard({ ...q, resamples: 0 });
+    res.setHeader('Content-Disposition', `attachment; filename="${fileName(view, 'csv')}"`);
     res.type('text/csv').send(scorecardCsv(pairs));
   }
 
@@ -46,7 +46,7 @@ export class ScorecardController {
   async pdf(@Query(zodQuery(ScorecardQuery)) q: ScorecardParams, @Res() res: Response) {
     const { view } = await this.scorecards.scorecard(q);
     const pdf = await scorecardPdf(view, this.config.unitName);
-    res.setHeader('Content-Disposition', `attachment; filename="${fileName(q, 'pdf')}"`);
+    res.setHeader('Content-Disposition', `attachment; filename="${fileName(view, 'pdf')}"`);
     res.type('application/pdf').send(pdf);
   }
 }
