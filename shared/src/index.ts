@@ -5,6 +5,7 @@ export * from './advice.js';
 export * from './atlas.js';
 export * from './audit.js';
 export * from './auth.js';
+export * from './bulletin-api.js';
 export * from './bulletins.js';
 export * from './errors.js';
 export * from './intake.js';

@@ -1,10 +1,13 @@
 import type {
   BlockedSector,
+  BulletinContent,
+  BulletinOutlookInputs,
   GeoPolygonal,
   RegimeSettings as RegimeSettingsShape,
   RuleCondition,
   SiteSettings,
 } from '@stormhour/shared';
+import { sql } from 'drizzle-orm';
 import {
   boolean,
   customType,
@@ -464,3 +467,131 @@ export const adviceRules = pgTable('advice_rules', {
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   updatedBy: integer('updated_by').references(() => users.id),
 });
+
+// ── Bulletins ─────────────────────────────────────────────────────────────────────────────────────
+
+/**
+ * A district's weekly bulletin. Its content lives in bulletin_versions; `approvedVersion` is the one
+ * frozen at approval and the one sent. At most one bulletin per district and week is live (not
+ * withdrawn): the partial unique index backs the service's 409.
+ */
+export const bulletins = pgTable(
+  'bulletins',
+  {
+    id: serial('id').primaryKey(),
+    districtId: integer('district_id')
+      .notNull()
+      .references(() => districts.id),
+    /** Monday of the ISO week, YYYY-MM-DD. */
+    weekStart: text('week_start').notNull(),
+    number: text('number').notNull(),
+    state: text('state', {
+      enum: ['draft', 'in_review', 'returned', 'approved', 'sent', 'withdrawn'],
+    }).notNull(),
+    authorId: integer('author_id')
+      .notNull()
+      .references(() => users.id),
+    currentVersion: integer('current_version').notNull(),
+    approvedVersion: integer('approved_version'),
+    /** The site's UTC offset, so local times of field reports are read as the bulletin meant them. */
+    utcOffsetMinutes: integer('utc_offset_minutes').notNull(),
+    draftedFrom: jsonb('drafted_from').$type<BulletinOutlookInputs>().notNull(),
+    approvedFrom: jsonb('approved_from').$type<BulletinOutlookInputs>(),
+    withdrawalReason: text('withdrawal_reason'),
+    createdAt: createdAt(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+    approvedAt: timestamp('approved_at', { withTimezone: true }),
+    sentAt: timestamp('sent_at', { withTimezone: true }),
+    withdrawnAt: timestamp('withdrawn_at', { withTimezone: true }),
+  },
+  (t) => [
+    uniqueIndex('bulletins_live_week_idx')
+      .on(t.districtId, t.weekStart)
+      .where(sql`${t.state} <> 'withdrawn'`),
+    index('bulletins_district_idx').on(t.districtId, t.weekStart),
+  ],
+);
+
+/** Every saved version of a bulletin's content; never changed once written. */
+export const bulletinVersions = pgTable(
+  'bulletin_versions',
+  {
+    id: serial('id').primaryKey(),
+    bulletinId: integer('bulletin_id')
+      .notNull()
+      .references(() => bulletins.id),
+    version: integer('version').notNull(),
+    content: jsonb('content').$type<BulletinContent>().notNull(),
+    savedBy: integer('saved_by')
+      .notNull()
+      .references(() => users.id),
+    savedAt: timestamp('saved_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('bulletin_versions_idx').on(t.bulletinId, t.version)],
+);
+
+/** The bulletin's history: every transition, who made it and when. */
+export const bulletinEvents = pgTable(
+  'bulletin_events',
+  {
+    id: serial('id').primaryKey(),
+    bulletinId: integer('bulletin_id')
+      .notNull()
+      .references(() => bulletins.id),
+    transition: text('transition').notNull(),
+    fromState: text('from_state'),
+    toState: text('to_state').notNull(),
+    actorId: integer('actor_id')
+      .notNull()
+      .references(() => users.id),
+    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+    comment: text('comment'),
+  },
+  (t) => [index('bulletin_events_bulletin_idx').on(t.bulletinId)],
+);
+
+/** When an officer first opened a sent bulletin, and acknowledged it. */
+export const bulletinReads = pgTable(
+  'bulletin_reads',
+  {
+    id: serial('id').primaryKey(),
+    bulletinId: integer('bulletin_id')
+      .notNull()
+      .references(() => bulletins.id),
+    officerId: integer('officer_id')
+      .notNull()
+      .references(() => users.id),
+    readAt: timestamp('read_at', { withTimezone: true }).notNull().defaultNow(),
+    acknowledgedAt: timestamp('acknowledged_at', { withTimezone: true }),
+  },
+  (t) => [uniqueIndex('bulletin_reads_idx').on(t.bulletinId, t.officerId)],
+);
+
+/** What an officer saw in a block during a bulletin's week; the scorecard verifies chances with them. */
+export const fieldReports = pgTable(
+  'field_reports',
+  {
+    id: serial('id').primaryKey(),
+    bulletinId: integer('bulletin_id')
+      .notNull()
+      .references(() => bulletins.id),
+    blockId: integer('block_id')
+      .notNull()
+      .references(() => blocks.id),
+    officerId: integer('officer_id')
+      .notNull()
+      .references(() => users.id),
+    stormSeen: boolean('storm_seen').notNull(),
+    /** Local time as the officer gave it, and the instant it stands for. */
+    startLocal: text('start_local'),
+    startTime: timestamp('start_time', { withTimezone: true }),
+    hail: boolean('hail').notNull(),
+    windDamage: boolean('wind_damage').notNull(),
+    cropDamage: boolean('crop_damage').notNull(),
+    actionTaken: text('action_taken').notNull(),
+    usefulness: integer('usefulness').notNull(),
+    notes: text('notes').notNull(),
+    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('field_reports_bulletin_idx').on(t.bulletinId, t.blockId)],
+);

@@ -1,56 +1,38 @@
-import type { BulletinContent } from '@stormhour/shared';
-import { diffArrays } from 'diff';
-import { bulletinLines } from './bulletinFormat';
-
-export interface DiffLine {
-  kind: 'added' | 'removed' | 'same';
-  text: string;
-}
-
-/** The lines of `after` against `before`, in order, each marked added, removed or the same. */
-export function diffBulletins(before: BulletinContent, after: BulletinContent): DiffLine[] {
-  return diffArrays(bulletinLines(before), bulletinLines(after)).flatMap((part) =>
-    part.value.map(
-      (text): DiffLine => ({ kind: part.added ? 'added' : part.removed ? 'removed' : 'same', text }),
-    ),
-  );
-}
+import type { BulletinTextDiff } from '@stormhour/shared';
 
 const MARK = { added: '+', removed: '−', same: ' ' } as const;
+const SPOKEN = { added: 'Added: ', removed: 'Removed: ', same: '' } as const;
 
-/** Two bulletins compared line by line; unchanged lines are folded away unless asked for. */
+/**
+ * The server's line-by-line comparison of two bulletins' plain text. Unchanged lines are folded away
+ * unless asked for, so a long bulletin's two changed lines are seen at once.
+ */
 export function VersionDiff({
-  before,
-  after,
+  diff,
   label,
   showSame = false,
 }: {
-  before: BulletinContent;
-  after: BulletinContent;
+  diff: BulletinTextDiff;
   label: string;
   showSame?: boolean;
 }) {
-  const lines = diffBulletins(before, after);
-  const changed = lines.filter((l) => l.kind !== 'same').length;
-  if (changed === 0) return <p>No differences.</p>;
+  if (!diff.against) return <p>Nothing to compare with yet.</p>;
+  if (diff.added === 0 && diff.removed === 0) return <p>No differences.</p>;
   return (
     <>
       <p className="cds--label-description">
-        {lines.filter((l) => l.kind === 'added').length} lines added,{' '}
-        {lines.filter((l) => l.kind === 'removed').length} removed.
+        {diff.added} {diff.added === 1 ? 'line' : 'lines'} added, {diff.removed} removed.
       </p>
       <ul className="version-diff" aria-label={label}>
-        {lines
-          .filter((l) => showSame || l.kind !== 'same')
+        {diff.lines
+          .filter((l) => showSame || l.op !== 'same')
           .map((l, i) => (
             // biome-ignore lint/suspicious/noArrayIndexKey: a diff's lines are identified by position
-            <li key={i} className={`version-diff__${l.kind}`}>
+            <li key={i} className={`version-diff__${l.op}`}>
               <span aria-hidden="true" className="version-diff__mark">
-                {MARK[l.kind]}
+                {MARK[l.op]}
               </span>
-              <span className="cds--visually-hidden">
-                {l.kind === 'added' ? 'Added: ' : l.kind === 'removed' ? 'Removed: ' : ''}
-              </span>
+              <span className="cds--visually-hidden">{SPOKEN[l.op]}</span>
               {l.text}
             </li>
           ))}

@@ -1,7 +1,5 @@
-import type { BulletinContent } from '@stormhour/shared';
 import { describe, expect, it } from 'vitest';
-import { aBulletinContent } from '../../test/bulletinBuilders';
-import { bulletinLines, chanceText, changeText, hourText, intervalText } from './bulletinFormat';
+import { chanceText, changeText, hourText, intervalText } from './bulletinFormat';
 
 describe('bulletin figures in words', () => {
   it.each([
@@ -25,21 +23,5 @@ describe('bulletin figures in words', () => {
     expect(changeText({ afternoonChance: 0.2, climatologyChance: 0.25 })).toBe('−5 points (usual 25 %)');
     expect(changeText({ afternoonChance: 0.25, climatologyChance: 0.25 })).toBe('±0 points (usual 25 %)');
     expect(changeText({ afternoonChance: null, climatologyChance: 0.25 })).toBe('–');
-  });
-});
-
-describe('bulletinLines', () => {
-  it('labels every line with the part of the bulletin it comes from', () => {
-    const content: BulletinContent = aBulletinContent({
-      summary: 'Storms likely.\nMost in the hills.',
-    });
-    const lines = bulletinLines(content);
-    expect(lines).toContain('Summary: Storms likely.');
-    expect(lines).toContain('Summary: Most in the hills.');
-    expect(lines).toContain(
-      'Outlook · Sallow Ford: 52 % (31 %–60 %, n = 40), peak 15:00, about 1 afternoon in 2, usually 1 in 4',
-    );
-    expect(lines).toContain('Crop advice · rice (tillering): Spray in the morning.');
-    expect(lines.filter((l) => l.startsWith('Caution: '))).toHaveLength(content.cautions.length);
   });
 });

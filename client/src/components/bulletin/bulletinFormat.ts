@@ -27,25 +27,3 @@ export function changeText(b: Pick<BulletinBlockOutlook, 'afternoonChance' | 'cl
 export function windowText(c: Pick<BulletinContent, 'afternoonFromHour' | 'afternoonToHour'>): string {
   return `${hourText(c.afternoonFromHour)}–${hourText(c.afternoonToHour)} local time`;
 }
-
-/**
- * A bulletin as labelled lines, one idea per line, so that two versions can be compared line by line
- * and a change shows where it is ("Outlook · Sallow Ford: …").
- */
-export function bulletinLines(c: BulletinContent): string[] {
-  return [
-    `Number: ${c.number}`,
-    `Week: ${c.weekStart} to ${c.weekEnd}`,
-    `Regime: ${c.regimeLabel ?? 'all days'}`,
-    ...c.summary.split('\n').map((line) => `Summary: ${line}`),
-    ...c.outlook.map(
-      (b) =>
-        `Outlook · ${b.blockName}: ${chanceText(b.afternoonChance)} (${intervalText(b)}, n = ${b.n}), peak ${hourText(b.peakHourLocal)}, ${b.inWords}`,
-    ),
-    ...c.crops.flatMap((a) =>
-      a.advice.split('\n').map((line) => `Crop advice · ${a.crop} (${a.stage}): ${line}`),
-    ),
-    ...c.generalAdvice.split('\n').map((line) => `General advice: ${line}`),
-    ...c.cautions.map((t) => `Caution: ${t}`),
-  ];
-}

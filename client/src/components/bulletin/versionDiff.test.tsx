@@ -1,31 +1,42 @@
+import type { BulletinTextDiff } from '@stormhour/shared';
 import { render, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { aBlockOutlook, aBulletinContent } from '../../test/bulletinBuilders';
+import { aBulletinContent } from '../../test/bulletinBuilders';
 import { BulletinView } from './BulletinView';
-import { diffBulletins, VersionDiff } from './VersionDiff';
+import { VersionDiff } from './VersionDiff';
 
-describe('diffBulletins', () => {
-  it('marks only the lines that changed, removed before added (a shortest edit script, Myers 1986, via jsdiff)', () => {
-    const before = aBulletinContent();
-    const after = aBulletinContent({ generalAdvice: 'Keep livestock away from fences.' });
-    const changed = diffBulletins(before, after).filter((l) => l.kind !== 'same');
-    expect(changed).toEqual([
-      { kind: 'removed', text: 'General advice: Keep livestock away from lone trees.' },
-      { kind: 'added', text: 'General advice: Keep livestock away from fences.' },
-    ]);
-  });
+const diff: BulletinTextDiff = {
+  against: { bulletinId: 3, number: 'RVB-2025-26', version: 2 },
+  lines: [
+    { op: 'same', text: 'Riverbend crop-weather bulletin' },
+    { op: 'removed', text: 'Keep livestock away from lone trees.' },
+    { op: 'added', text: 'Keep livestock away from fences.' },
+  ],
+  added: 1,
+  removed: 1,
+};
 
-  it('says so when nothing changed', () => {
-    render(<VersionDiff before={aBulletinContent()} after={aBulletinContent()} label="Changes" />);
-    expect(screen.getByText('No differences.')).toBeTruthy();
-  });
-
-  it('lists the changes for screen readers as added and removed', () => {
-    const after = aBulletinContent({ outlook: [aBlockOutlook({ afternoonChance: 0.6 })] });
-    render(<VersionDiff before={aBulletinContent()} after={after} label="Changes" />);
+describe('VersionDiff', () => {
+  it('lists only the changed lines, spoken as added and removed', () => {
+    render(<VersionDiff diff={diff} label="Changes" />);
     const list = screen.getByRole('list', { name: 'Changes' });
-    expect(within(list).getAllByText(/^Removed:/).length).toBe(2);
-    expect(within(list).getByText(/Outlook · Sallow Ford: 60 %/)).toBeTruthy();
+    expect(
+      within(list)
+        .getAllByRole('listitem')
+        .map((li) => li.textContent),
+    ).toEqual(['−Removed: Keep livestock away from lone trees.', '+Added: Keep livestock away from fences.']);
+    expect(screen.getByText('1 line added, 1 removed.')).toBeTruthy();
+  });
+
+  it('says when there is nothing to compare with, or nothing changed', () => {
+    const { rerender } = render(
+      <VersionDiff diff={{ against: null, lines: [], added: 0, removed: 0 }} label="Changes" />,
+    );
+    expect(screen.getByText('Nothing to compare with yet.')).toBeTruthy();
+    rerender(
+      <VersionDiff diff={{ ...diff, lines: [diff.lines[0]], added: 0, removed: 0 }} label="Changes" />,
+    );
+    expect(screen.getByText('No differences.')).toBeTruthy();
   });
 });
 
