@@ -28,7 +28,7 @@ export function VersionDiff({
           .filter((l) => showSame || l.op !== 'same')
           .map((l, i) => (
             // biome-ignore lint/suspicious/noArrayIndexKey: a diff's lines are identified by position
-            <li key={i} className={`version-diff__${l.op}`}>
+            <li key={i} className={`version-diff__line version-diff__${l.op}`}>
               <span aria-hidden="true" className="version-diff__mark">
                 {MARK[l.op]}
               </span>
