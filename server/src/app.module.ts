@@ -5,6 +5,7 @@ import { AdviceModule } from './advice/advice.module.js';
 import { AtlasModule } from './atlas/atlas.module.js';
 import { AuditModule } from './audit/audit.module.js';
 import { AuthModule } from './auth/auth.module.js';
+import { BulletinsModule } from './bulletins/bulletins.module.js';
 import { JwtAuthGuard, RolesGuard } from './common/access.guards.js';
 import { ApiExceptionFilter } from './common/api-exception.filter.js';
 import { JsonBodyMiddleware } from './common/json-body.middleware.js';
@@ -52,6 +53,7 @@ export class AppModule implements NestModule {
         MailModule,
         AdviceModule,
         OutlookModule,
+        BulletinsModule,
         DemoModule,
         ...staticClient,
       ],

@@ -41,6 +41,7 @@ describe('loadConfig', () => {
       smtpUrl: null,
       mailFakePort: 0,
       mailFrom: 'Stormhour <bulletins@stormhour.invalid>',
+      unitName: 'Agro-met advisory unit',
     });
     const real = loadConfig({
       DATA_DIR: 'memory://',

@@ -30,6 +30,8 @@ export interface AppConfig {
   mailFakePort: number;
   /** The From of every message, "Name <address>". */
   mailFrom: string;
+  /** The unit's name as bulletins print it. */
+  unitName: string;
 }
 
 export const APP_CONFIG = Symbol('APP_CONFIG');
@@ -73,6 +75,7 @@ const EnvSchema = z.object({
     .trim()
     .refine(isSingleMailbox, 'MAIL_FROM must be one address, e.g. Stormhour <bulletins@unit.example>')
     .default('Stormhour <bulletins@stormhour.invalid>'),
+  UNIT_NAME: z.string().trim().min(1).max(120).default('Agro-met advisory unit'),
 });
 
 function isSmtpUrl(value: string): boolean {
@@ -117,6 +120,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     smtpUrl: e.SMTP_URL || null,
     mailFakePort: e.MAIL_FAKE_PORT,
     mailFrom: e.MAIL_FROM,
+    unitName: e.UNIT_NAME,
   };
 }
 

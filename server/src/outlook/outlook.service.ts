@@ -84,6 +84,15 @@ export class OutlookService {
   }
 
   /**
+   * A short hash of everything the site's outlooks depend on: a bulletin records it at drafting and at
+   * approval, so anyone can tell whether the data changed since. Null when the site does not exist.
+   */
+  async dataFingerprint(siteId: number): Promise<string | null> {
+    const version = await this.fingerprint(siteId);
+    return version === null ? null : createHash('sha1').update(version).digest('hex');
+  }
+
+  /**
    * The site's data fingerprint. While no transaction has written anything since it was read (the
    * database's write mark is unchanged), it cannot have changed and is not read again.
    */

@@ -41,6 +41,7 @@ export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
     smtpUrl: null,
     mailFakePort: 0,
     mailFrom: 'Stormhour test <bulletins@stormhour.invalid>',
+    unitName: 'Agro-met advisory unit',
     ...overrides,
   };
 }
