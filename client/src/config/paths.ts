@@ -108,8 +108,10 @@ export const api = {
   bulletinAction: (id: number, action: BulletinAction) => `/api/bulletins/${id}/${action}`,
   bulletinVersion: (id: number, version: number) => `/api/bulletins/${id}/versions/${version}`,
   bulletinDiff: (id: number) => `/api/bulletins/${id}/diff`,
+  bulletinReports: (id: number) => `/api/bulletins/${id}/reports`,
   bulletinDelivery: (id: number) => `/api/bulletins/${id}/delivery`,
-  bulletinExport: (id: number, format: BulletinExportFormat) => `/api/bulletins/${id}/export/${format}`,
+  bulletinExport: (id: number, format: BulletinExportFormat) =>
+    `/api/bulletins/${id}/${format === 'cap' ? 'cap.xml' : format}`,
   inbox: '/api/inbox',
   inboxBulletin: (id: number) => `/api/inbox/${id}`,
   inboxAcknowledge: (id: number) => `/api/inbox/${id}/acknowledge`,

@@ -1,19 +1,23 @@
 import { TabbedSection } from '../../components/TabbedSection';
 import { paths } from '../../config/paths';
+import { useSessionUser } from '../../lib/auth';
 
-const BULLETINS_PAGES = [
-  { name: 'Bulletins', path: paths.bulletins.list },
-  { name: 'Advice rules', path: paths.bulletins.rules },
-  { name: 'Crop calendars', path: paths.bulletins.calendars },
-] as const;
+const BULLETINS = { name: 'Bulletins', path: paths.bulletins.list };
+const RULES = { name: 'Advice rules', path: paths.bulletins.rules };
+const CALENDARS = { name: 'Crop calendars', path: paths.bulletins.calendars };
 
-/** The rules and calendars tabs by their path; anything else under the section is a bulletin. */
-function tabOf(pathname: string): number {
-  if (pathname.startsWith(paths.bulletins.rules)) return 1;
-  if (pathname.startsWith(paths.bulletins.calendars)) return 2;
-  return 0;
-}
-
+/**
+ * The bulletins, then what their advice is drawn from. The administrator reviews bulletins but keeps
+ * calendars under Admin and has no part in the rules, so sees the bulletins alone.
+ */
 export default function BulletinsLayout() {
-  return <TabbedSection title="Bulletins" label="Bulletins pages" pages={BULLETINS_PAGES} tabOf={tabOf} />;
+  const user = useSessionUser();
+  const pages = user.role === 'admin' ? [BULLETINS] : [BULLETINS, RULES, CALENDARS];
+  // Anything under the section that is not a rules or calendars page is a bulletin.
+  const tabOf = (pathname: string) =>
+    Math.max(
+      0,
+      pages.findIndex((p) => p !== BULLETINS && pathname.startsWith(p.path)),
+    );
+  return <TabbedSection title="Bulletins" label="Bulletins pages" pages={pages} tabOf={tabOf} />;
 }

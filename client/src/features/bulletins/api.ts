@@ -6,6 +6,7 @@ import type {
   BulletinVersionView,
   BulletinView,
   CreateBulletinRequest,
+  FieldReportView,
   SaveBulletinRequest,
 } from '@stormhour/shared';
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
@@ -19,6 +20,7 @@ export const bulletinKeys = {
   bulletin: (id: number) => ['bulletins', id] as const,
   version: (id: number, version: number) => ['bulletins', id, 'version', version] as const,
   diff: (id: number, version: number) => ['bulletins', id, 'diff', version] as const,
+  reports: (id: number) => ['bulletins', id, 'reports'] as const,
   delivery: (id: number) => ['bulletins', id, 'delivery'] as const,
 };
 
@@ -57,17 +59,27 @@ export function useBulletinVersion(id: number, version: number | null) {
   return useQuery({ ...getBulletinVersionQueryOptions(id, version ?? 0), enabled: version !== null });
 }
 
-export function fetchBulletinDiff(id: number, version: number): Promise<BulletinDiffView> {
-  return request<BulletinDiffView>(withQuery(api.bulletinDiff(id), { version }));
+/** The shown version (the approved one once approved) against the one before and the last sent bulletin. */
+export function fetchBulletinDiff(id: number): Promise<BulletinDiffView> {
+  return request<BulletinDiffView>(api.bulletinDiff(id));
 }
+/** `version` is the version shown now: part of the key, so a new version brings a new comparison. */
 export function getBulletinDiffQueryOptions(id: number, version: number) {
-  return queryOptions({
-    queryKey: bulletinKeys.diff(id, version),
-    queryFn: () => fetchBulletinDiff(id, version),
-  });
+  return queryOptions({ queryKey: bulletinKeys.diff(id, version), queryFn: () => fetchBulletinDiff(id) });
 }
 export function useBulletinDiff(id: number, version: number) {
   return useQuery(getBulletinDiffQueryOptions(id, version));
+}
+
+/** The officers' field reports on a bulletin, for the unit's staff. */
+export function fetchBulletinReports(id: number): Promise<FieldReportView[]> {
+  return request<FieldReportView[]>(api.bulletinReports(id));
+}
+export function getBulletinReportsQueryOptions(id: number) {
+  return queryOptions({ queryKey: bulletinKeys.reports(id), queryFn: () => fetchBulletinReports(id) });
+}
+export function useBulletinReports(id: number, enabled: boolean) {
+  return useQuery({ ...getBulletinReportsQueryOptions(id), enabled });
 }
 
 export function fetchBulletinDelivery(id: number): Promise<BulletinDeliveryView> {
@@ -127,11 +139,12 @@ export function useBulletinMutation(id: number) {
   });
 }
 
+// The same names the server gives in Content-Disposition.
 const EXPORT_NAMES: Record<BulletinExportFormat, (number: string) => string> = {
-  pdf: (n) => `${n}.pdf`,
-  cap: (n) => `${n}.cap.xml`,
-  text: (n) => `${n}.txt`,
-  sms: (n) => `${n}-sms.txt`,
+  pdf: (n) => `${n.toLowerCase()}.pdf`,
+  cap: (n) => `${n.toLowerCase()}.cap.xml`,
+  text: (n) => `${n.toLowerCase()}.txt`,
+  sms: (n) => `${n.toLowerCase()}-sms.txt`,
 };
 
 export async function downloadBulletin(id: number, number: string, format: BulletinExportFormat) {

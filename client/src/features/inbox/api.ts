@@ -40,14 +40,17 @@ export function useInboxBulletin(id: number) {
   });
 }
 
-export function acknowledgeBulletin(id: number): Promise<InboxItem> {
-  return request<InboxItem>(api.inboxAcknowledge(id), { method: 'POST' });
+export function acknowledgeBulletin(id: number): Promise<InboxBulletinView> {
+  return request<InboxBulletinView>(api.inboxAcknowledge(id), { method: 'POST' });
 }
 export function useAcknowledgeBulletin(id: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => acknowledgeBulletin(id),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: inboxKeys.all }),
+    onSuccess: (bulletin) => {
+      queryClient.setQueryData(inboxKeys.bulletin(id), bulletin);
+      return queryClient.invalidateQueries({ queryKey: inboxKeys.list });
+    },
   });
 }
 

@@ -8,7 +8,6 @@ import { PageSection } from '../../../components/PageSection';
 import { SortableTable } from '../../../components/SortableTable';
 import { TableSearch } from '../../../components/TableSearch';
 import { paths } from '../../../config/paths';
-import { useSessionUser } from '../../../lib/auth';
 import { formatDateTime } from '../../../lib/format';
 import { useBulletins } from '../api';
 import { STATE_TAG } from '../bulletinWords';
@@ -26,7 +25,6 @@ const HEADERS = [
 
 /** Every bulletin, newest week first: sortable, filtered by district, state and text. */
 export default function BulletinsListPage() {
-  const user = useSessionUser();
   const districts = useDistricts();
   const [districtId, setDistrictId] = useState('');
   const [state, setState] = useState<BulletinState | ''>('');
@@ -105,11 +103,9 @@ export default function BulletinsListPage() {
                   <SelectItem key={s} value={s} text={BULLETIN_STATE_LABELS[s]} />
                 ))}
               </Select>
-              {user.role === 'writer' ? (
-                <Button size="sm" onClick={() => setCreating(true)}>
-                  New bulletin
-                </Button>
-              ) : null}
+              <Button size="sm" onClick={() => setCreating(true)}>
+                New bulletin
+              </Button>
             </>
           ),
         }}

@@ -1,51 +1,36 @@
 import { Select, SelectItem, Toggle } from '@carbon/react';
 import type { BulletinView } from '@stormhour/shared';
 import { useState } from 'react';
+import { BulletinView as BulletinDocument } from '../../../components/bulletin/BulletinView';
 import { VersionDiff } from '../../../components/bulletin/VersionDiff';
 import { LoadError } from '../../../components/LoadError';
 import { formatDateTime } from '../../../lib/format';
-import { useBulletinDiff } from '../api';
+import { useBulletinDiff, useBulletinVersion } from '../api';
 
 /**
- * Saved versions, and the chosen one's text compared with the version before it and with the district's
- * previous sent bulletin (the comparisons come from the server, on the same plain text officers get).
+ * What changed: the shown version (the approved one once approved) against the version before it and
+ * against the district's last sent bulletin, compared by the server on the plain text officers receive;
+ * and any saved version to read in full.
  */
 export function VersionsPanel({ bulletin }: { bulletin: BulletinView }) {
-  const [version, setVersion] = useState(bulletin.currentVersion);
+  const shownVersion = bulletin.approvedVersion ?? bulletin.currentVersion;
+  const diff = useBulletinDiff(bulletin.id, shownVersion);
   const [showSame, setShowSame] = useState(false);
-  const shown = bulletin.versions.some((v) => v.version === version) ? version : bulletin.currentVersion;
-  const diff = useBulletinDiff(bulletin.id, shown);
+  const [reading, setReading] = useState<number | null>(null);
+  const version = useBulletinVersion(bulletin.id, reading);
   const newestFirst = [...bulletin.versions].sort((a, b) => b.version - a.version);
 
   return (
     <div className="form-stack">
-      <div className="form-row">
-        <Select
-          id="bulletin-version"
-          labelText="Version"
-          value={String(shown)}
-          onChange={(e) => setVersion(Number(e.target.value))}
-        >
-          {newestFirst.map((v) => (
-            <SelectItem
-              key={v.version}
-              value={String(v.version)}
-              text={`Version ${v.version}: ${v.savedBy}, ${formatDateTime(v.savedAt)}${
-                v.version === bulletin.approvedVersion ? ' (approved)' : ''
-              }`}
-            />
-          ))}
-        </Select>
-        <Toggle
-          id="bulletin-diff-same"
-          labelText="Unchanged lines"
-          labelA="Hidden"
-          labelB="Shown"
-          size="sm"
-          toggled={showSame}
-          onToggle={setShowSame}
-        />
-      </div>
+      <Toggle
+        id="bulletin-diff-same"
+        labelText="Unchanged lines"
+        labelA="Hidden"
+        labelB="Shown"
+        size="sm"
+        toggled={showSame}
+        onToggle={setShowSame}
+      />
       {diff.isError ? (
         <LoadError what="the comparison" error={diff.error} onRetry={() => diff.refetch()} />
       ) : null}
@@ -53,7 +38,7 @@ export function VersionsPanel({ bulletin }: { bulletin: BulletinView }) {
         <div className="diff-pair">
           <section aria-label="Against the previous version">
             <h3 className="bulletin-view__heading">
-              Against{' '}
+              Version {diff.data.version} against{' '}
               {diff.data.previousVersion.against
                 ? `version ${diff.data.previousVersion.against.version}`
                 : 'the previous version'}
@@ -64,16 +49,16 @@ export function VersionsPanel({ bulletin }: { bulletin: BulletinView }) {
               showSame={showSame}
             />
           </section>
-          <section aria-label="Against the previous sent bulletin">
+          <section aria-label="Against the last sent bulletin">
             <h3 className="bulletin-view__heading">
               Against{' '}
               {diff.data.previousSent.against
-                ? `${diff.data.previousSent.against.number} (last sent)`
-                : 'the last sent bulletin'}
+                ? `${diff.data.previousSent.against.number}, the district’s last sent bulletin`
+                : 'the district’s last sent bulletin'}
             </h3>
             <VersionDiff
               diff={diff.data.previousSent}
-              label="Changes from the previous sent bulletin"
+              label="Changes from the last sent bulletin"
               showSame={showSame}
             />
           </section>
@@ -81,6 +66,28 @@ export function VersionsPanel({ bulletin }: { bulletin: BulletinView }) {
       ) : diff.isLoading ? (
         <p>Loading…</p>
       ) : null}
+
+      <Select
+        id="bulletin-version"
+        labelText="Read a saved version"
+        value={reading === null ? '' : String(reading)}
+        onChange={(e) => setReading(e.target.value ? Number(e.target.value) : null)}
+      >
+        <SelectItem value="" text="Choose a version" />
+        {newestFirst.map((v) => (
+          <SelectItem
+            key={v.version}
+            value={String(v.version)}
+            text={`Version ${v.version}: ${v.savedBy}, ${formatDateTime(v.savedAt)}${
+              v.version === bulletin.approvedVersion ? ' (approved)' : ''
+            }`}
+          />
+        ))}
+      </Select>
+      {version.isError ? (
+        <LoadError what="the version" error={version.error} onRetry={() => version.refetch()} />
+      ) : null}
+      {reading !== null && version.data ? <BulletinDocument content={version.data.content} /> : null}
     </div>
   );
 }
