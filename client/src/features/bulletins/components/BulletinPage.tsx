@@ -39,17 +39,33 @@ import { WarningsPanel } from './WarningsPanel';
 export default function BulletinPage() {
   const id = Number(useParams().bulletinId);
   const bulletin = useBulletin(id);
+  // Kept here: a save brings a new version, which starts the workspace afresh, and its notice must stay.
+  const [notice, setNotice] = useState<string | null>(null);
   if (bulletin.isError)
     return <LoadError what="the bulletin" error={bulletin.error} onRetry={() => bulletin.refetch()} />;
   if (!bulletin.data) return <Loading withOverlay={false} description="Loading the bulletin" />;
   // A new saved version starts the form afresh from what the server stored.
-  return <Workspace key={bulletin.data.currentVersion} bulletin={bulletin.data} />;
+  return (
+    <Workspace
+      key={bulletin.data.currentVersion}
+      bulletin={bulletin.data}
+      notice={notice}
+      setNotice={setNotice}
+    />
+  );
 }
 
-function Workspace({ bulletin }: { bulletin: BulletinView }) {
+function Workspace({
+  bulletin,
+  notice,
+  setNotice,
+}: {
+  bulletin: BulletinView;
+  notice: string | null;
+  setNotice: (notice: string | null) => void;
+}) {
   const [form, setForm] = useState<BulletinForm>(() => formFromBulletin(bulletin));
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const [notice, setNotice] = useState<string | null>(null);
   const save = useBulletinMutation(bulletin.id);
   const dirty = bulletin.can.edit && !sameForm(form, formFromBulletin(bulletin));
   const lastReturn = [...bulletin.events].reverse().find((e) => e.transition === 'return');

@@ -51,7 +51,7 @@ export function NewBulletinModal({ onClose }: { onClose: () => void }) {
         invalidText={errors.districtId}
         data-modal-primary-focus
       >
-        <SelectItem value="" text={districts.isLoading ? 'Loading…' : 'Choose a district'} />
+        <SelectItem value="" text={districts.isLoading ? 'Loading…' : 'Pick a district'} />
         {(districts.data ?? []).map((d) => (
           <SelectItem key={d.id} value={String(d.id)} text={`${d.name} (${d.code})`} />
         ))}
