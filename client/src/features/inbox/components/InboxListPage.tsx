@@ -91,7 +91,7 @@ export default function InboxListPage() {
         }}
         renderActions={(row) => (
           <Link as={RouterLink} to={paths.inbox.bulletin(row.id)}>
-            Read<span className="cds--visually-hidden"> bulletin {String(row.cells[1].value)}</span>
+            Open<span className="cds--visually-hidden"> bulletin {String(row.cells[1].value)}</span>
           </Link>
         )}
       />
