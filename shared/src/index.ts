@@ -15,4 +15,5 @@ export * from './radar.js';
 export * from './regimes.js';
 export * from './regions.js';
 export * from './roles.js';
+export * from './scorecard.js';
 export * from './users.js';

@@ -89,6 +89,41 @@ export const CellTableMapping = z
   .strict();
 export type CellTableMapping = z.infer<typeof CellTableMapping>;
 
+/** Our names for the columns of a long-form anomaly CSV: one row per day, grid point, variable and level. */
+export const ANOMALY_CSV_FIELDS = ['date', 'lat', 'lon', 'variable', 'level_hpa', 'value', 'units'] as const;
+export type AnomalyCsvField = (typeof ANOMALY_CSV_FIELDS)[number];
+
+/** Header spellings commonly used for each field, compared as normaliseHeader makes them. */
+export const ANOMALY_CSV_SYNONYMS: Record<AnomalyCsvField, string[]> = {
+  date: ['day', 'valid_day', 'valid_date', 'date_utc', 'time', 'valid_time', 'datetime'],
+  lat: ['latitude', 'lat_deg'],
+  lon: ['longitude', 'long', 'lng', 'lon_deg'],
+  variable: ['var', 'field', 'parameter', 'param', 'quantity', 'name'],
+  level_hpa: ['level', 'lev', 'plev', 'pressure', 'pressure_level', 'level_mb'],
+  value: ['anomaly', 'anom', 'val', 'data'],
+  units: ['unit', 'uom'],
+};
+
+export const ANOMALY_CSV_DATE_FORMATS = ['YYYY-MM-DD', 'YYYYMMDD', 'DD/MM/YYYY', 'MM/DD/YYYY'] as const;
+export type AnomalyCsvDateFormat = (typeof ANOMALY_CSV_DATE_FORMATS)[number];
+
+/**
+ * How a long-form anomaly CSV's columns and values map onto ours. The variable may come from the
+ * request's `variable` instead of a column, and the level from `levelHpa`, for files of one field.
+ */
+export const AnomalyCsvMapping = z
+  .object({
+    /** Our field → the file's column header. */
+    columns: z.partialRecord(z.enum(ANOMALY_CSV_FIELDS), z.string().min(1)),
+    /** The file's name for each of our variables, e.g. { q: "shum" }; unlisted ones are read as q, u, v. */
+    variableNames: z.partialRecord(z.enum(['q', 'u', 'v']), z.string().trim().min(1)).default({}),
+    /** The pressure level of every row, for a file without a level column. */
+    levelHpa: z.number().positive().max(1100).optional(),
+    dateFormat: z.enum(ANOMALY_CSV_DATE_FORMATS).default('YYYY-MM-DD'),
+  })
+  .strict();
+export type AnomalyCsvMapping = z.infer<typeof AnomalyCsvMapping>;
+
 /** The multipart fields of POST /api/intake besides files[]. */
 export const IntakeRequest = z
   .object({
@@ -96,7 +131,10 @@ export const IntakeRequest = z
     kind: z.enum(INTAKE_KINDS, { message: `kind must be one of ${INTAKE_KINDS.join(', ')}` }),
     /** On a bad file: stop the whole job (nothing stored), or skip that file and go on. */
     onError: z.enum(['fail', 'skip']).default('skip'),
-    /** JSON of CellTableMapping; cell tables only. Without it, our own column names are expected. */
+    /**
+     * JSON of CellTableMapping for cell tables, of AnomalyCsvMapping for anomaly CSVs. Without it, our
+     * own column names are expected.
+     */
     mapping: z.string().optional(),
     /**
      * For files whose metadata lacks the scan time: a pattern for the file name with the tokens

@@ -1,8 +1,10 @@
+import { readdirSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { type Browser, baseUrl, openBrowser, signIn } from './browser.js';
 
 const fixture = (name: string) => fileURLToPath(new URL(`../fixtures/${name}`, import.meta.url));
+const demoDir = fileURLToPath(new URL('../../sample-data/vessary/', import.meta.url));
 const shot = (name: string) => fileURLToPath(new URL(`./screenshots/${name}.png`, import.meta.url));
 
 describe('the scientist takes radar data in', () => {
@@ -50,6 +52,40 @@ describe('the scientist takes radar data in', () => {
     await page.getByRole('table', { name: 'Files' }).getByText('Imported').waitFor();
     await page.getByRole('img', { name: 'Cells per scan over time' }).waitFor();
     await page.screenshot({ path: shot('intake-job') });
+  });
+
+  it('maps an anomaly CSV with its own column and variable names, then uploads it', async () => {
+    const { page } = browser;
+    // One day of the demo's q anomalies, written as another centre might: own headers, names and dates.
+    const csv = readdirSync(demoDir).find((f) => /^anomalies-.*\.csv$/.test(f)) as string;
+    const rows = readFileSync(`${demoDir}${csv}`, 'utf8')
+      .split('\n')
+      .filter((line) => line.startsWith('2025-06-01,') && line.includes(',q,'))
+      .map((line) => {
+        const [date, lat, lon, , level, value] = line.split(',');
+        return [date.replaceAll('-', ''), lat, lon, 'shum', level, value].join(',');
+      });
+    await page.goto(`${baseUrl()}/intake`);
+    await chooseDemoSite();
+    await page.getByLabel('Kind of files').selectOption('anomaly-grid');
+    await page.getByLabel('Choose files').setInputFiles({
+      name: 'their-q850.csv',
+      mimeType: 'text/csv',
+      buffer: Buffer.from(['Valid Day,Latitude,Longitude,Param,Level,Anomaly', ...rows].join('\n')),
+    });
+    await page.getByRole('table', { name: 'Preview of the anomaly CSV' }).waitFor();
+    const blockers = page.getByRole('list', { name: 'Before uploading' });
+    await blockers.getByText('The file names variables "shum": say which of q, u, v each one is.').waitFor();
+    expect(await page.getByLabel('Dates are written').inputValue()).toBe('YYYYMMDD');
+    await page.getByLabel('Name of q (specific humidity anomaly)').fill('shum');
+    await blockers.waitFor({ state: 'detached' });
+    await page.screenshot({ path: shot('intake-anomaly-mapping') });
+    await page.getByRole('button', { name: 'Upload' }).click();
+    const report = page.getByRole('link', { name: /Open the quality report of job \d+/ });
+    await report.waitFor({ timeout: 30_000 });
+    await report.click();
+    await page.getByRole('table', { name: 'Files' }).getByText('Imported').waitFor();
+    await page.getByText(/q at 850 hPa, 1 day/).waitFor();
   });
 
   it('is shown the problems of a broken file, by row and column', async () => {

@@ -1,8 +1,9 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { AnomalyCsvMapping } from '@stormhour/shared';
 import { describe, expect, it } from 'vitest';
-import { parseAnomalyCsv } from './anomaly-csv.js';
+import { parseAnomalyCsv, readDate } from './anomaly-csv.js';
 import { readAnomalyTiff } from './anomaly-reader.js';
 
 const demo = fileURLToPath(new URL('../../../sample-data/vessary/', import.meta.url));
@@ -28,7 +29,7 @@ describe('parseAnomalyCsv', () => {
   it('converts stated units where they fit and leaves missing points NaN', () => {
     const text =
       'date,lat,lon,variable,level_hpa,value\n2025-06-01,14,88,u,850,10\n2025-06-01,14,88.25,u,850,\n2025-06-01,14,88,q,850,1\n';
-    const fields = parseAnomalyCsv(text, 'kt');
+    const fields = parseAnomalyCsv(text, { units: 'kt' });
     const u = fields.find((f) => f.variable === 'u');
     // 1 knot = 1852 m per 3600 s (international nautical mile, by definition).
     expect(u?.days[0].values[0]).toBeCloseTo(10 * (1852 / 3600), 5);
@@ -86,5 +87,137 @@ describe('parseAnomalyCsv', () => {
     } catch (e) {
       expect(e).toMatchObject({ where, message: expect.stringMatching(problem) });
     }
+  });
+
+  describe('with a column mapping', () => {
+    const ours =
+      'date,lat,lon,variable,level_hpa,value\n2025-06-01,14,88,q,850,1.5\n2025-06-01,14,88.25,q,850,-0.5\n2025-06-02,14,88,u,850,3\n';
+    const mapping = (m: unknown) => AnomalyCsvMapping.parse(m);
+
+    it('reads a file with other headers, variable names and date format as the same grids as ours', () => {
+      const theirs =
+        'Valid Day;Latitude;Longitude;Param;Level (hPa);Anom\n20250601;14;88;shum;850;1.5\n20250601;14;88.25;shum;850;-0.5\n20250602;14;88;uwnd;850;3\n'.replaceAll(
+          ';',
+          ',',
+        );
+      const mapped = parseAnomalyCsv(theirs, {
+        mapping: mapping({
+          columns: {
+            date: 'Valid Day',
+            lat: 'Latitude',
+            lon: 'Longitude',
+            variable: 'Param',
+            level_hpa: 'Level (hPa)',
+            value: 'Anom',
+          },
+          variableNames: { q: 'SHUM', u: 'uwnd' },
+          dateFormat: 'YYYYMMDD',
+        }),
+      });
+      expect(mapped).toEqual(parseAnomalyCsv(ours));
+    });
+
+    it('takes the variable and level for the whole file when the file has no such columns', () => {
+      const oneField = 'day,lat,lon,anomaly\n01/06/2025,14,88,1.5\n01/06/2025,14,88.25,-0.5\n';
+      const [q] = parseAnomalyCsv(oneField, {
+        variable: 'q',
+        mapping: mapping({
+          columns: { date: 'day', lat: 'lat', lon: 'lon', value: 'anomaly' },
+          levelHpa: 850,
+          dateFormat: 'DD/MM/YYYY',
+        }),
+      });
+      expect(q).toMatchObject({ variable: 'q', levelHpa: 850 });
+      expect(q.days.map((d) => d.date)).toEqual(['2025-06-01']);
+      expect([...q.days[0].values]).toEqual([1.5, -0.5]);
+    });
+
+    it.each([
+      [
+        'a mapped column the file lacks',
+        {
+          columns: {
+            date: 'when',
+            lat: 'lat',
+            lon: 'lon',
+            variable: 'variable',
+            level_hpa: 'level_hpa',
+            value: 'value',
+          },
+        },
+        'header',
+        /"when" \(mapped to date\) are not in the file, whose columns are date, lat, lon/,
+      ],
+      [
+        'no level column and no level for the file',
+        { columns: { date: 'date', lat: 'lat', lon: 'lon', variable: 'variable', value: 'value' } },
+        'header',
+        /no column is mapped to level_hpa; map one, or give the level for the whole file/,
+      ],
+      [
+        'a date in another format than chosen',
+        {
+          columns: {
+            date: 'date',
+            lat: 'lat',
+            lon: 'lon',
+            variable: 'variable',
+            level_hpa: 'level_hpa',
+            value: 'value',
+          },
+          dateFormat: 'DD/MM/YYYY',
+        },
+        'row 2, column "date"',
+        /"2025-06-01" is not a date written DD\/MM\/YYYY \(e.g. 01\/06\/2025\)/,
+      ],
+    ])('refuses %s, saying where', (_what, m, where, problem) => {
+      try {
+        parseAnomalyCsv(ours, { mapping: mapping(m) });
+        expect.unreachable();
+      } catch (e) {
+        expect(e).toMatchObject({ where, message: expect.stringMatching(problem) });
+      }
+    });
+
+    it('names the file’s own column and the mapped names when a variable is not known', () => {
+      const text = 'Param,date,lat,lon,level_hpa,value\ntemp,2025-06-01,14,88,850,1\n';
+      try {
+        parseAnomalyCsv(text, {
+          mapping: mapping({
+            columns: {
+              date: 'date',
+              lat: 'lat',
+              lon: 'lon',
+              variable: 'Param',
+              level_hpa: 'level_hpa',
+              value: 'value',
+            },
+            variableNames: { q: 'shum' },
+          }),
+        });
+        expect.unreachable();
+      } catch (e) {
+        expect(e).toMatchObject({
+          where: 'row 2, column "Param"',
+          message: expect.stringMatching(/"temp" is not one of q, u, v or the names mapped to them \(shum\)/),
+        });
+      }
+    });
+  });
+
+  describe('readDate', () => {
+    it.each([
+      ['2025-06-01', 'YYYY-MM-DD', '2025-06-01'],
+      ['20250601', 'YYYYMMDD', '2025-06-01'],
+      ['1/6/2025', 'DD/MM/YYYY', '2025-06-01'],
+      ['6/1/2025', 'MM/DD/YYYY', '2025-06-01'],
+      // Gregorian calendar (ISO 8601): 2024 is a leap year, 2025 is not, and June has 30 days.
+      ['2024-02-29', 'YYYY-MM-DD', '2024-02-29'],
+      ['2025-02-29', 'YYYY-MM-DD', null],
+      ['31/06/2025', 'DD/MM/YYYY', null],
+      ['2025-6-1', 'YYYY-MM-DD', null],
+    ] as const)('reads %s written %s as %s', (text, format, expected) => {
+      expect(readDate(text, format)).toBe(expected);
+    });
   });
 });

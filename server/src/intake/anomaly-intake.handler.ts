@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import type { AnomalyProduct, AnomalyVariable, FieldKind } from '@stormhour/shared';
+import type { AnomalyCsvMapping, AnomalyProduct, AnomalyVariable, FieldKind } from '@stormhour/shared';
 import type { JobContext, JobOutcome } from '../jobs/jobs.service.js';
 import { SitesRepository } from '../radar/sites.repository.js';
 import { AnomaliesRepository } from '../regimes/anomalies.repository.js';
@@ -23,6 +23,8 @@ export interface AnomalyIntakeParams {
   product?: AnomalyProduct;
   fieldKind?: FieldKind;
   timePattern?: string;
+  /** Long-form CSVs: the file's columns, variable names and date format. */
+  csvMapping?: AnomalyCsvMapping;
   files: { uploadId: number; fileName: string; duplicate: boolean }[];
 }
 
@@ -75,7 +77,11 @@ export class AnomalyIntakeHandler {
           );
         const fields = isTiff(content)
           ? [await readAnomalyTiff(content, { ...p, fileName })]
-          : parseAnomalyCsv(content.toString('utf8'), p.units);
+          : parseAnomalyCsv(content.toString('utf8'), {
+              units: p.units,
+              mapping: p.csvMapping,
+              variable: p.variable,
+            });
         if (site) for (const f of fields) checkOverlapsCoverage(f.grid, site);
         if (product === 'analysis' && fieldKind !== 'climatology') {
           const today = new Date().toISOString().slice(0, 10);

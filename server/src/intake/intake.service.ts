@@ -1,5 +1,12 @@
 import { BadRequestException, Injectable, type OnModuleInit } from '@nestjs/common';
-import { CellTableMapping, type IntakeRequest, type JobView, type SessionUser } from '@stormhour/shared';
+import {
+  AnomalyCsvMapping,
+  CellTableMapping,
+  type IntakeRequest,
+  type JobView,
+  type SessionUser,
+} from '@stormhour/shared';
+import type { z } from 'zod';
 import { AuditService } from '../audit/audit.service.js';
 import type { JobFile } from '../jobs/job-problem.js';
 import { JobsService } from '../jobs/jobs.service.js';
@@ -59,7 +66,9 @@ export class IntakeService implements OnModuleInit {
         details: [{ where: 'siteId', problem: 'no such site' }],
       });
     }
-    const mapping = req.kind === 'cell-table' ? this.parseMapping(req.mapping) : undefined;
+    const mapping = req.kind === 'cell-table' ? parseMapping(CellTableMapping, req.mapping) : undefined;
+    const csvMapping =
+      req.kind === 'anomaly-grid' && req.mapping ? parseMapping(AnomalyCsvMapping, req.mapping) : undefined;
 
     const jobFiles: JobFile[] = [];
     const uploadIds: number[] = [];
@@ -104,6 +113,7 @@ export class IntakeService implements OnModuleInit {
               product: req.product,
               fieldKind: req.fieldKind,
               timePattern: req.timePattern,
+              csvMapping,
               files: fileRefs,
             } satisfies AnomalyIntakeParams,
           ]
@@ -138,29 +148,30 @@ export class IntakeService implements OnModuleInit {
   read(sha256: string): Promise<Buffer> {
     return this.store.read(sha256);
   }
+}
 
-  private parseMapping(text: string | undefined): CellTableMapping {
-    if (!text) return CellTableMapping.parse({ columns: {} });
-    let json: unknown;
-    try {
-      json = JSON.parse(text);
-    } catch {
-      throw new BadRequestException({
-        message: 'The field "mapping" is not valid JSON.',
-        details: [{ where: 'mapping', problem: 'not JSON' }],
-      });
-    }
-    const parsed = CellTableMapping.safeParse(json);
-    if (!parsed.success) {
-      const details = parsed.error.issues.map((i) => ({
-        where: ['mapping', ...i.path].join('.'),
-        problem: i.message,
-      }));
-      throw new BadRequestException({
-        message: `The column mapping is not valid: ${details.map((d) => `${d.where}: ${d.problem}`).join('; ')}`,
-        details,
-      });
-    }
-    return parsed.data;
+/** The `mapping` field read against its schema; every problem named by its path in the mapping. */
+function parseMapping<T extends z.ZodType>(schema: T, text: string | undefined): z.output<T> {
+  if (!text) return schema.parse({ columns: {} });
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch {
+    throw new BadRequestException({
+      message: 'The field "mapping" is not valid JSON.',
+      details: [{ where: 'mapping', problem: 'not JSON' }],
+    });
   }
+  const parsed = schema.safeParse(json);
+  if (!parsed.success) {
+    const details = parsed.error.issues.map((i) => ({
+      where: ['mapping', ...i.path].join('.'),
+      problem: i.message,
+    }));
+    throw new BadRequestException({
+      message: `The column mapping is not valid: ${details.map((d) => `${d.where}: ${d.problem}`).join('; ')}`,
+      details,
+    });
+  }
+  return parsed.data;
 }

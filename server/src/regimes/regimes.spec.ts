@@ -183,6 +183,45 @@ describe('anomaly intake and regimes', () => {
     expect(same).toBeGreaterThanOrEqual(118);
   });
 
+  it('takes a CSV with its own column names, variable names and dates through a column mapping', async () => {
+    const csv = readdirSync(demo).find((f) => /^anomalies-.*\.csv$/.test(f)) as string;
+    const firstDay = readFileSync(join(demo, csv), 'utf8')
+      .split('\n')
+      .filter((line) => line.startsWith('2025-06-01,') && line.includes(',q,'))
+      .map((line) => {
+        const [date, lat, lon, , level, value] = line.split(',');
+        return [date.replaceAll('-', ''), lat, lon, 'shum', level, value].join(';');
+      });
+    const text = ['Valid Day;Latitude;Longitude;Param;Level;Anom', ...firstDay].join('\n');
+    const mapping = {
+      columns: {
+        date: 'Valid Day',
+        lat: 'Latitude',
+        lon: 'Longitude',
+        variable: 'Param',
+        level_hpa: 'Level',
+        value: 'Anom',
+      },
+      variableNames: { q: 'shum' },
+      dateFormat: 'YYYYMMDD',
+    };
+    const send = (m: unknown) =>
+      t.http
+        .post('/api/intake')
+        .set(auth)
+        .field('siteId', String(siteId))
+        .field('kind', 'anomaly-grid')
+        .field('mapping', JSON.stringify(m))
+        .attach('files[]', Buffer.from(text), 'their-q850.csv');
+    const refused = await send({ ...mapping, dateFormat: 'DD.MM.YY' }).expect(400);
+    expect(refused.body.details[0].where).toBe('mapping.dateFormat');
+    const res = await send(mapping).expect(202);
+    await t.app.get(JobsService).idle();
+    const job = (await t.http.get(`/api/jobs/${res.body.id}`).set(auth)).body;
+    expect(job.state).toBe('done');
+    expect(job.summary).toMatch(/q at 850 hPa, 1 day/);
+  });
+
   it('averages over a district’s blocks when one is named', async () => {
     const admin = { Authorization: `Bearer ${await t.signedIn('admin')}` };
     await t.http

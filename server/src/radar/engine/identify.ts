@@ -72,6 +72,28 @@ export interface IdentifyResult {
   rejectedTooSmall: number;
 }
 
+const runningSumsCache = new WeakMap<Float64Array, Float64Array>();
+
+/**
+ * Per row y, the sums of the first x column areas at y·(nx + 1) + x. The same grid serves every scan of
+ * a site, so the sums are kept beside its area array.
+ */
+function rowRunningSums(areaKm2: Float64Array, nx: number, ny: number): Float64Array {
+  const cached = runningSumsCache.get(areaKm2);
+  if (cached && cached.length === ny * (nx + 1)) return cached;
+  const sums = new Float64Array(ny * (nx + 1));
+  for (let y = 0; y < ny; y++) {
+    let sum = 0;
+    for (let x = 0; x < nx; x++) {
+      sums[y * (nx + 1) + x] = sum;
+      sum += areaKm2[y * nx + x];
+    }
+    sums[y * (nx + 1) + nx] = sum;
+  }
+  runningSumsCache.set(areaKm2, sums);
+  return sums;
+}
+
 /** Finds the cells of one scan and describes each (DESIGN §3.1). */
 export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_IDENTIFY): IdentifyResult {
   const { nx, ny, nz, data, nodata } = grid;
@@ -97,13 +119,13 @@ export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_ID
   const is3dSize = is3d ? 1 : 0;
 
   // Size first, from the runs alone: most regions are speckle and are dropped without reading a value.
+  // A run's area is a difference of its row's running sums of column areas.
+  const rowSums = rowRunningSums(areaKm2, nx, ny);
   const size = new Float64Array(components);
   for (let i = 0; i < runs.count; i++) {
-    const rowBase = ry[i] * nx;
+    const rowBase = ry[i] * (nx + 1);
     const thickness = is3dSize ? thicknessKm[rz[i]] : 1;
-    let area = 0;
-    for (let x = rx0[i]; x < rx1[i]; x++) area += areaKm2[rowBase + x];
-    size[rl[i]] += area * thickness;
+    size[rl[i]] += (rowSums[rowBase + rx1[i]] - rowSums[rowBase + rx0[i]]) * thickness;
   }
   // 2-D runs never share a column, so their summed area is the footprint.
   const minSize = is3d ? s.minVolumeKm3 : s.minAreaKm2;

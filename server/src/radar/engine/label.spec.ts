@@ -113,6 +113,26 @@ describe('labelGrid on hand-made grids', () => {
     expect(labelGrid(g, shape, 1, 6).components).toBe(2);
   });
 
+  it('reads float32 volumes by bit pattern exactly as it compares numbers', () => {
+    // IEEE 754: non-negative floats order like their bit patterns; NaN and negatives must never pass.
+    const special = [Number.NaN, -Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, -0, -35];
+    const f32 = new Float32Array(6 * 40 * 40);
+    let seed = 7;
+    const random = () => {
+      seed = (seed * 1103515245 + 12345) % 2 ** 31;
+      return seed / 2 ** 31;
+    };
+    for (let i = 0; i < f32.length; i++)
+      f32[i] = random() < 0.05 ? special[i % special.length] : 25 + 20 * random();
+    // 35.3 is not a float32: passing starts at the float32 just above it.
+    for (const threshold of [35, 35.3, Math.fround(35.3), 40]) {
+      const asFloats = labelGrid(f32, { nx: 40, ny: 40, nz: 6 }, threshold, 26);
+      const asNumbers = labelGrid(Array.from(f32), { nx: 40, ny: 40, nz: 6 }, threshold, 26);
+      expect(asFloats.runs.count).toBeGreaterThan(100);
+      expect(asFloats).toEqual(asNumbers);
+    }
+  });
+
   it('refuses a wrong shape and a connectivity that does not fit the dimensions', () => {
     expect(() => labelGrid([1, 2, 3], { nx: 2, ny: 2, nz: 1 }, 1, 8)).toThrow(/holds 3 values/);
     expect(() => labelGrid([1, 2, 3, 4], { nx: 2, ny: 2, nz: 1 }, 1, 26)).toThrow(

@@ -128,12 +128,38 @@ export function labelGrid(
   // A nodata value below the threshold (the usual −9999, or NaN) can never pass: ignore it.
   const hasNodata = nodata !== undefined && nodata >= threshold;
 
+  // For float32 data and a positive threshold, x ≥ threshold is an integer comparison of the bit
+  // patterns (IEEE 754 orders non-negative floats like their bits; negatives have the sign bit set),
+  // with NaN's patterns above +∞ excluded. Reading the bits skips the float-to-double conversion.
+  const bits =
+    data instanceof Float32Array && threshold > 0 && !hasNodata
+      ? new Int32Array(data.buffer, data.byteOffset, data.length)
+      : null;
+  const thresholdBits = bits ? new Int32Array(new Float32Array([threshold]).buffer)[0] : 0;
+  // A threshold between two float32 values: the first float32 at or above it is where passing starts.
+  const lowestPassing =
+    bits && new Float32Array([threshold])[0] < threshold ? thresholdBits + 1 : thresholdBits;
+  const INFINITY_BITS = 0x7f800000;
+
   for (let z = 0, row = 0; z < nz; z++) {
     for (let y = 0; y < ny; y++, row++) {
       rowStart[row] = rz.length;
       const base = row * nx;
       const end = base + nx;
       let i = base;
+      if (bits) {
+        while (i < end) {
+          while (i < end && !(bits[i] >= lowestPassing && bits[i] <= INFINITY_BITS)) i++;
+          if (i === end) break;
+          const start = i;
+          while (i < end && bits[i] >= lowestPassing && bits[i] <= INFINITY_BITS) i++;
+          rz.push(z);
+          ry.push(y);
+          rx0.push(start - base);
+          rx1.push(i - base);
+        }
+        continue;
+      }
       while (i < end) {
         // Skip the (usual) quiet part fast; NaN fails every comparison, so it is quiet too.
         if (hasNodata) while (i < end && !(data[i] >= threshold && data[i] !== nodata)) i++;

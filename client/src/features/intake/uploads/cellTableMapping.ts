@@ -28,20 +28,26 @@ export { normaliseHeader };
 
 export type ColumnChoice = Partial<Record<CellTableField, string>>;
 
-/** Pre-selects the file's column for each of our fields whose header matches the name or a synonym. */
-export function guessColumns(headers: readonly string[]): ColumnChoice {
+/**
+ * Pre-selects the file's column for each field whose header matches the name or a synonym; each column
+ * is taken once, and exact names before synonyms so "area" is not claimed by another field's synonym.
+ */
+export function guessColumnsFor<F extends string>(
+  headers: readonly string[],
+  fields: readonly F[],
+  synonyms: Record<F, string[]>,
+): Partial<Record<F, string>> {
   const byNormal = new Map<string, string>();
   for (const header of headers) {
     const key = normaliseHeader(header);
     if (!byNormal.has(key)) byNormal.set(key, header);
   }
   const used = new Set<string>();
-  const columns: ColumnChoice = {};
-  // Exact names first, so "area" is not claimed by a synonym of another field.
+  const columns: Partial<Record<F, string>> = {};
   for (const pass of ['own', 'synonyms'] as const) {
-    for (const field of CELL_TABLE_FIELDS) {
+    for (const field of fields) {
       if (columns[field]) continue;
-      const names = pass === 'own' ? [field] : SYNONYMS[field];
+      const names = pass === 'own' ? [field] : synonyms[field];
       const header = names.map((n) => byNormal.get(n)).find((h) => h !== undefined && !used.has(h));
       if (header) {
         columns[field] = header;
@@ -50,6 +56,11 @@ export function guessColumns(headers: readonly string[]): ColumnChoice {
     }
   }
   return columns;
+}
+
+/** Pre-selects the file's column for each of our cell-table fields. */
+export function guessColumns(headers: readonly string[]): ColumnChoice {
+  return guessColumnsFor(headers, CELL_TABLE_FIELDS, SYNONYMS);
 }
 
 export interface MappingDraft {

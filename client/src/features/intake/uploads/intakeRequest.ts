@@ -1,4 +1,5 @@
 import type {
+  AnomalyCsvMapping,
   AnomalyProduct,
   AnomalyVariable,
   CellTableMapping,
@@ -75,8 +76,8 @@ export interface IntakeDraft {
   files: File[];
   onError: OnError;
   timePattern: string;
-  /** Cell tables only; null until the mapping step is complete. */
-  mapping: CellTableMapping | null;
+  /** Cell tables and anomaly CSVs; null until the mapping step is complete (or for no CSV). */
+  mapping: CellTableMapping | AnomalyCsvMapping | null;
   /** Anomaly grids only; null leaves it to the file's metadata. */
   variable?: AnomalyVariable | null;
   units?: AnomalyUnit | null;
@@ -105,7 +106,7 @@ export function uploadBlockers(draft: IntakeDraft, mappingProblems: readonly str
   ) {
     blockers.push('The file-name time pattern needs at least one of YYYY, MM, DD, hh, mm, ss.');
   }
-  if (draft.kind === 'cell-table') blockers.push(...mappingProblems);
+  if (draft.kind === 'cell-table' || draft.kind === 'anomaly-grid') blockers.push(...mappingProblems);
   return blockers;
 }
 
@@ -116,7 +117,8 @@ export function buildIntakeForm(draft: IntakeDraft): FormData {
   form.append('siteId', String(draft.siteId));
   form.append('kind', draft.kind);
   form.append('onError', draft.onError);
-  if (draft.kind === 'cell-table' && draft.mapping) form.append('mapping', JSON.stringify(draft.mapping));
+  if ((draft.kind === 'cell-table' || draft.kind === 'anomaly-grid') && draft.mapping)
+    form.append('mapping', JSON.stringify(draft.mapping));
   if ((isGeoTiffKind(draft.kind) || draft.kind === 'anomaly-grid') && draft.timePattern.trim() !== '') {
     form.append('timePattern', draft.timePattern.trim());
   }

@@ -1,20 +1,8 @@
-import {
-  RadioButton,
-  RadioButtonGroup,
-  Select,
-  SelectItem,
-  Table,
-  TableBody,
-  TableCell,
-  TableContainer,
-  TableHead,
-  TableHeader,
-  TableRow,
-  TextInput,
-} from '@carbon/react';
+import { RadioButton, RadioButtonGroup, Select, SelectItem, TextInput } from '@carbon/react';
 import { CELL_TABLE_FIELDS, type CellTableField } from '@stormhour/shared';
 import { CELL_FIELD_LABELS, type MappingDraft } from '../cellTableMapping';
 import type { CsvPreview } from '../csvPreview';
+import { CsvPreviewTable } from './CsvPreviewTable';
 
 interface ColumnMappingStepProps {
   fileName: string;
@@ -36,39 +24,6 @@ function isRequired(field: CellTableField): boolean {
   return REQUIRED.includes(field) || ['lat', 'lon', 'x', 'y'].includes(field);
 }
 
-function PreviewTable({ fileName, preview }: { fileName: string; preview: CsvPreview }) {
-  return (
-    <TableContainer
-      title="Preview of the cell table"
-      description={`The first ${preview.rows.length} rows of ${fileName}`}
-      className="mapping-preview"
-    >
-      <Table size="xs">
-        <TableHead>
-          <TableRow>
-            {preview.headers.map((h) => (
-              <TableHeader key={h}>{h}</TableHeader>
-            ))}
-          </TableRow>
-        </TableHead>
-        <TableBody>
-          {preview.rows.map((row, index) => (
-            // Preview rows have no key of their own and never reorder.
-            // biome-ignore lint/suspicious/noArrayIndexKey: see above.
-            <TableRow key={index}>
-              {preview.headers.map((h) => (
-                <TableCell key={h} className="mono">
-                  {row[h]}
-                </TableCell>
-              ))}
-            </TableRow>
-          ))}
-        </TableBody>
-      </Table>
-    </TableContainer>
-  );
-}
-
 /** Before a cell table is sent: which of the file's columns holds each of our fields, and in what units. */
 export function ColumnMappingStep({
   fileName,
@@ -82,14 +37,7 @@ export function ColumnMappingStep({
   return (
     <fieldset className="mapping-step">
       <legend className="section-title">Columns of the cell table</legend>
-      <PreviewTable fileName={fileName} preview={preview} />
-      {preview.problems.length > 0 ? (
-        <ul className="field-problems" aria-label="Problems in the preview">
-          {preview.problems.map((p) => (
-            <li key={p}>{p}</li>
-          ))}
-        </ul>
-      ) : null}
+      <CsvPreviewTable title="Preview of the cell table" fileName={fileName} preview={preview} />
       <p className="cds--label-description">
         For each of our fields, pick the file’s column that holds it. Columns matching our name or a common
         spelling are already picked. The same mapping applies to every file of this upload.

@@ -26,7 +26,14 @@ import { useStartIntake } from '../../jobs/api';
 import { JobFollower } from '../../jobs/components/JobFollower';
 import { useSites } from '../../sites/api';
 import { offsetForMapping } from '../../siteTime';
-import { toMapping } from '../cellTableMapping';
+import {
+  type AnomalyMappingDraft,
+  anomalyDraftFromPreview,
+  anomalyMappingProblems,
+  toAnomalyMapping,
+} from '../anomalyCsvMapping';
+import { draftFromHeaders, type MappingDraft, mappingProblems, toMapping } from '../cellTableMapping';
+import type { CsvPreview } from '../csvPreview';
 import {
   ANOMALY_UNIT_LABELS,
   ANOMALY_VARIABLE_LABELS,
@@ -42,10 +49,13 @@ import {
   unitsFor,
   uploadBlockers,
 } from '../intakeRequest';
+import { AnomalyMappingStep } from './AnomalyMappingStep';
 import { ColumnMappingStep } from './ColumnMappingStep';
 import { FilePicker } from './FilePicker';
 import { UploadProgress } from './UploadProgress';
 import { useCsvMapping } from './useCsvMapping';
+
+const proposeCellMapping = (preview: CsvPreview): MappingDraft => draftFromHeaders(preview.headers, 'UTC');
 
 function SiteAndKind(props: {
   sites: SiteView[];
@@ -182,7 +192,16 @@ export function UploadForm() {
   const siteId = chosenSite ?? (sites.data?.length === 1 ? sites.data[0].id : null);
   const site = sites.data?.find((s) => s.id === siteId) ?? null;
   const csvFile = kind === 'cell-table' ? (files.find((f) => fitsKind(f.name, kind)) ?? null) : null;
-  const mapping = useCsvMapping(csvFile);
+  const mapping = useCsvMapping(csvFile, proposeCellMapping, mappingProblems);
+  // Anomaly uploads may mix GeoTIFFs and CSVs: the mapping step is for the CSVs.
+  const anomalyCsv =
+    kind === 'anomaly-grid' ? (files.find((f) => f.name.toLowerCase().endsWith('.csv')) ?? null) : null;
+  const anomalyMapping = useCsvMapping<AnomalyMappingDraft>(
+    anomalyCsv,
+    anomalyDraftFromPreview,
+    (d, preview) => anomalyMappingProblems(d, preview, variable),
+  );
+  const activeProblems = anomalyCsv ? anomalyMapping.problems : mapping.problems;
   const draft: IntakeDraft = {
     siteId,
     kind,
@@ -193,9 +212,15 @@ export function UploadForm() {
     units,
     product,
     fieldKind,
-    mapping: mapping.draft && mapping.problems.length === 0 ? toMapping(mapping.draft) : null,
+    mapping: anomalyCsv
+      ? anomalyMapping.draft && anomalyMapping.problems.length === 0
+        ? toAnomalyMapping(anomalyMapping.draft)
+        : null
+      : mapping.draft && mapping.problems.length === 0
+        ? toMapping(mapping.draft)
+        : null,
   };
-  const blockers = uploadBlockers(draft, mapping.problems);
+  const blockers = uploadBlockers(draft, activeProblems);
   const busy = upload.isPending || upload.isSuccess;
 
   if (sites.isPending) return <InlineLoading description="Loading the radar sites" />;
@@ -284,6 +309,15 @@ export function UploadForm() {
           draft={mapping.draft}
           siteOffset={site ? offsetForMapping(site.utcOffsetMinutes) : null}
           onChange={mapping.setDraft}
+        />
+      ) : null}
+      {anomalyCsv && anomalyMapping.preview && anomalyMapping.draft ? (
+        <AnomalyMappingStep
+          fileName={anomalyCsv.name}
+          preview={anomalyMapping.preview}
+          draft={anomalyMapping.draft}
+          fileVariable={variable}
+          onChange={anomalyMapping.setDraft}
         />
       ) : null}
 

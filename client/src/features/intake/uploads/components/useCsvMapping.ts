@@ -1,29 +1,35 @@
 import { useEffect, useState } from 'react';
-import { draftFromHeaders, type MappingDraft, mappingProblems } from '../cellTableMapping';
 import { type CsvPreview, readCsvPreview } from '../csvPreview';
 
-interface CsvMapping {
+export interface CsvMapping<D> {
   preview: CsvPreview | null;
-  draft: MappingDraft | null;
-  setDraft: (draft: MappingDraft) => void;
-  /** What is missing before upload; "reading" while the preview loads. */
+  draft: D | null;
+  setDraft: (draft: D) => void;
+  /** What is missing before upload, as `check` says; "reading" while the preview loads. */
   problems: string[];
 }
 
-/** Reads the first rows of the first file, proposes a mapping from its header, and checks it. */
-export function useCsvMapping(file: File | null): CsvMapping {
-  const [state, setState] = useState<{ file: File; preview: CsvPreview; draft: MappingDraft } | null>(null);
+/**
+ * Reads the first rows of a CSV file, proposes a mapping of its columns (`propose`) and checks it
+ * (`check`). Both are called with the latest preview; `propose` must be a stable function.
+ */
+export function useCsvMapping<D>(
+  file: File | null,
+  propose: (preview: CsvPreview) => D,
+  check: (draft: D, preview: CsvPreview) => string[],
+): CsvMapping<D> {
+  const [state, setState] = useState<{ file: File; preview: CsvPreview; draft: D } | null>(null);
 
   useEffect(() => {
     if (!file) return;
     let cancelled = false;
     readCsvPreview(file).then((preview) => {
-      if (!cancelled) setState({ file, preview, draft: draftFromHeaders(preview.headers, 'UTC') });
+      if (!cancelled) setState({ file, preview, draft: propose(preview) });
     });
     return () => {
       cancelled = true;
     };
-  }, [file]);
+  }, [file, propose]);
 
   const current = state && state.file === file ? state : null;
   const problems = !file
@@ -32,7 +38,7 @@ export function useCsvMapping(file: File | null): CsvMapping {
       ? ['Reading the first rows of the file…']
       : current.preview.headers.length === 0
         ? ['The file has no header row to map.']
-        : mappingProblems(current.draft);
+        : check(current.draft, current.preview);
   return {
     preview: current?.preview ?? null,
     draft: current?.draft ?? null,
