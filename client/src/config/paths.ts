@@ -118,6 +118,9 @@ export const api = {
   inboxReports: (id: number) => `/api/inbox/${id}/reports`,
   outlook: '/api/outlook',
   outlookCsv: '/api/outlook.csv',
+  scorecard: '/api/scorecard',
+  scorecardCsv: '/api/scorecard.csv',
+  scorecardPdf: '/api/scorecard.pdf',
   atlas: {
     map: '/api/atlas/map',
     diurnal: '/api/atlas/diurnal',
