@@ -151,11 +151,11 @@ export function proposedSeason(
   today: string,
 ): { from: string; to: string } | null {
   if (sent.length === 0) return null;
-  const from = sent.reduce((first, b) => (b.weekStart < first ? b.weekStart : first), sent[0].weekStart);
-  const last = sent.reduce((end, b) => (b.weekEnd > end ? b.weekEnd : end), sent[0].weekEnd);
-  const yesterday = addDays(today, -1);
-  const to = last < yesterday ? last : yesterday;
-  return { from, to: to < from ? from : to };
+  // ISO dates sort as text.
+  const from = sent.map((b) => b.weekStart).sort()[0];
+  const last = sent.map((b) => b.weekEnd).sort()[sent.length - 1];
+  const to = [last, addDays(today, -1)].sort()[0];
+  return { from, to: [to, from].sort()[1] };
 }
 
 /** "scorecard-riverbend-2025-06-02-to-2025-09-28.csv" */
