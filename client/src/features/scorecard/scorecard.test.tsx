@@ -164,7 +164,7 @@ describe('Scorecard', { timeout: 30_000 }, () => {
     expect(scorecardCalls(server.calls)).toHaveLength(0);
   });
 
-  it('says when the period holds no sent bulletin, or none of their days can be scored yet', async () => {
+  it('says when no sent bulletin covers a past day of the period, and how to get some', async () => {
     renderScorecard(
       {
         'GET /api/scorecard': {
@@ -181,12 +181,13 @@ describe('Scorecard', { timeout: 30_000 }, () => {
     );
     expect(
       await screen.findByText(
-        /No bulletins were sent for Riverbend, 2025-05-01 to 2025-05-31/,
+        /No bulletin sent for Riverbend covers a day between 2025-05-01 and 2025-05-31 that has passed/,
         {},
         { timeout: 15_000 },
       ),
     ).toBeTruthy();
     expect(screen.queryByRole('img', { name: 'Reliability diagram' })).toBeNull();
+    expect(screen.getByText(/only sent bulletins are scored/)).toBeTruthy();
   });
 
   it('says "not yet scorable" when bulletins were sent but no day has an outcome', async () => {

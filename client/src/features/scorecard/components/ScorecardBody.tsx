@@ -97,7 +97,7 @@ export function ScorecardBody({ view, params }: { view: ScorecardView; params: S
         kind="info"
         lowContrast
         hideCloseButton
-        title={`No bulletins were sent for ${period}, so there is nothing to score.`}
+        title={`No bulletin sent for ${view.districtName} covers a day between ${view.from} and ${view.to} that has passed, so there is nothing to score.`}
       >
         <HowToGetScores />
       </InlineNotification>
