@@ -21,6 +21,7 @@ import { OutlookModule } from './outlook/outlook.module.js';
 import { RadarModule } from './radar/radar.module.js';
 import { RegimesModule } from './regimes/regimes.module.js';
 import { RegionsModule } from './regions/regions.module.js';
+import { ScorecardModule } from './scorecard/scorecard.module.js';
 import { UsersModule } from './users/users.module.js';
 
 @Module({})
@@ -54,6 +55,7 @@ export class AppModule implements NestModule {
         AdviceModule,
         OutlookModule,
         BulletinsModule,
+        ScorecardModule,
         DemoModule,
         ...staticClient,
       ],

@@ -16,7 +16,7 @@ import { RegimesService } from '../regimes/regimes.service.js';
 import { RegionsRepository } from '../regions/regions.repository.js';
 import { areaAndPerimeter, bufferedAreaKm2, coverageFraction, toPlane } from './engine/block-coverage.js';
 import { blocksWithin, ownBlock } from './engine/neighbourhood.js';
-import { computeOutlook, type OutlookResult } from './engine/outlook.js';
+import { type AfternoonDaily, computeOutlook, type OutlookResult } from './engine/outlook.js';
 import { type EventColumns, OutlookRepository, type TimeRange } from './outlook.repository.js';
 import { outlookCsv } from './outlook-csv.js';
 
@@ -104,6 +104,49 @@ export class OutlookService {
     const version = await this.repo.dataVersion(siteId);
     this.fingerprints.bySite.set(siteId, version);
     return version;
+  }
+
+  /**
+   * For the scorecard: on each day of q.from–q.to, whether each block (covered enough) saw a storm start
+   * in the afternoon window, on the days whose afternoon had enough radar availability. Counted exactly
+   * as the outlook counts, from the same stored source.
+   */
+  async afternoonDaily(q: OutlookQuery & { from: string; to: string }): Promise<AfternoonDailyAnswer> {
+    const version = (await this.fingerprint(q.siteId)) ?? 'none';
+    const site = await this.sites.get(q.siteId);
+    const offset = site.utcOffsetMinutes;
+    const range: TimeRange = {
+      from: localMidnightUtc(dayOfDate(q.from), offset),
+      to: localMidnightUtc(dayOfDate(q.to) + 1, offset),
+    };
+    const sources = await this.onsetsBySource(q.siteId, range, version);
+    const source = (q.source ?? sources[0]?.source ?? 'cell-table') as OutlookSource;
+    const data = await this.load(q, source, range, version);
+    const days: number[] = [];
+    for (let d = dayOfDate(q.from); d <= dayOfDate(q.to); d++) days.push(d);
+    const result = computeOutlook({
+      blocks: data.blocks.map((b) => ({ coverage: b.coverage, countingAreaKm2: b.countingAreaKm2 })),
+      eventTimes: data.events.time,
+      eventBlocks: data.eventBlocks,
+      scanTimes: data.scanTimes,
+      utcOffsetMinutes: offset,
+      intervalMin: site.intervalMin,
+      binHours: q.binHours,
+      afternoon: { fromHour: q.afternoonFrom, toHour: q.afternoonTo },
+      minAvailability: site.settings.minAvailability,
+      minBlockCoverage: site.settings.minBlockCoverage,
+      interval: q.interval,
+      level: OUTLOOK_LEVEL,
+      days: Int32Array.from(days),
+      withIntervals: false,
+      withDaily: true,
+    });
+    return {
+      source,
+      dates: days.map(dateOfDay),
+      blocks: data.blocks.map((b) => ({ id: b.id, code: b.code, name: b.name, districtId: b.districtId })),
+      daily: result.afternoonDaily as AfternoonDaily,
+    };
   }
 
   private async compute(q: OutlookQuery, version: string): Promise<OutlookResponse> {
@@ -299,6 +342,14 @@ export class OutlookService {
 }
 
 type SourceCount = { source: string; onsets: number };
+
+export interface AfternoonDailyAnswer {
+  source: OutlookSource;
+  /** Local dates, in the order of the daily arrays. */
+  dates: string[];
+  blocks: { id: number; code: string; name: string; districtId: number | null }[];
+  daily: AfternoonDaily;
+}
 
 interface RegimeList {
   days: { date: string; regime: string | null }[];

@@ -9,7 +9,7 @@ import { type RichBlock, richTextBlocks, type TextRun } from './rich-text.js';
  * needs no network and no system fonts. The Latin subset covers the languages the demo uses.
  */
 const require = createRequire(import.meta.url);
-const FONTS = {
+export const FONTS = {
   regular: require.resolve('@fontsource/ibm-plex-sans/files/ibm-plex-sans-latin-400-normal.woff'),
   italic: require.resolve('@fontsource/ibm-plex-sans/files/ibm-plex-sans-latin-400-italic.woff'),
   bold: require.resolve('@fontsource/ibm-plex-sans/files/ibm-plex-sans-latin-600-normal.woff'),

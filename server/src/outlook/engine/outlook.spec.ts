@@ -76,6 +76,15 @@ describe('counting the outlook on a hand-made record', () => {
     expect(c.peakBin).toBeNull();
   });
 
+  it('tells, day by day, which covered blocks saw an afternoon storm start (for the scorecard)', () => {
+    const daily = computeOutlook({ ...input(days), withDaily: true }).afternoonDaily;
+    // By hand from the events above: A on days 0, 1 and 3; B on day 2; C is not covered enough.
+    expect(Array.from(daily?.counted ?? [])).toEqual([1, 1, 1, 1]);
+    expect(Array.from(daily?.storm ?? [])).toEqual([1, 1, 0, 1, 0, 0, 1, 0, 0, 0, 0, 0]);
+    expect(daily?.blockCounted).toEqual([true, true, false]);
+    expect(computeOutlook(input(days)).afternoonDaily).toBeUndefined();
+  });
+
   it('gives the Jeffreys interval of x of n beside every rate', () => {
     const { blocks } = computeOutlook(input(days));
     const f = blocks[0].bins[4];

@@ -31,6 +31,18 @@ export interface OutlookInput {
   level: number;
   /** False when only rates are wanted (the all-days climatology beside a regime): no intervals. */
   withIntervals?: boolean;
+  /** True to also return, day by day, whether each block saw a storm start in the afternoon. */
+  withDaily?: boolean;
+}
+
+/** Day by day (in the order of `days`): what the scorecard checks issued chances against. */
+export interface AfternoonDaily {
+  /** 1 where the afternoon had enough radar availability to count. */
+  counted: Uint8Array;
+  /** Index b·days + p: 1 where block b (covered enough) saw a storm start in day p's counted afternoon. */
+  storm: Uint8Array;
+  /** Per block: covered enough to count at all. */
+  blockCounted: boolean[];
 }
 
 export interface BlockResult {
@@ -44,6 +56,8 @@ export interface BlockResult {
 export interface OutlookResult {
   blocks: BlockResult[];
   priors: { bins: BetaPrior[]; afternoon: BetaPrior };
+  /** Only when asked for (`withDaily`). */
+  afternoonDaily?: AfternoonDaily;
 }
 
 const NO_DATA: OutlookFigure = {
@@ -223,7 +237,17 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
       peakBin,
     };
   });
-  return { blocks: results, priors: { bins: binPriors, afternoon: afternoonPrior } };
+  const result: OutlookResult = { blocks: results, priors: { bins: binPriors, afternoon: afternoonPrior } };
+  if (input.withDaily) {
+    const storm = new Uint8Array(blocks * dayCount);
+    for (let b = 0; b < blocks; b++) {
+      if (!hasData[b]) continue;
+      for (let p = 0; p < dayCount; p++)
+        if (afternoonCounted[p] && seen[b * dayCount + p] & afternoonMask) storm[b * dayCount + p] = 1;
+    }
+    result.afternoonDaily = { counted: afternoonCounted, storm, blockCounted: hasData };
+  }
+  return result;
 }
 
 /**

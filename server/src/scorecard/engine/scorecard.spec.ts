@@ -1,6 +1,7 @@
 import type { ScorecardPair } from '@stormhour/shared';
 import { describe, expect, it } from 'vitest';
-import { scorePairs } from './scorecard.js';
+import { chanceRanks, rocAreaByRank, scorePairs } from './scorecard.js';
+import { roc } from './verification.js';
 
 const pair = (
   date: string,
@@ -123,5 +124,22 @@ describe('scoring pairs', () => {
     const s = scorePairs([], { resamples: 100, thresholds: [0.4] });
     expect(s).toMatchObject({ pairs: 0, brier: null, skill: null, murphy: null, brierInterval: null });
     expect(s.thresholds[0].hitRate).toBeNull();
+  });
+
+  it('counts the ROC area by rank exactly as the trapezoid area of the full curve, ties and repeats included', () => {
+    // roc() is checked against scipy.stats.mannwhitneyu in verification.spec.ts.
+    let seed = 11;
+    const random = () => {
+      seed = (seed * 16807) % 2147483647;
+      return seed / 2147483647;
+    };
+    const f = Float64Array.from({ length: 300 }, () => Math.round(random() * 10) / 10);
+    const o = Float64Array.from(f, (p) => (random() < p ? 1 : 0));
+    const ranks = chanceRanks(f);
+    const all = Array.from(f, (_, i) => i);
+    expect(rocAreaByRank(ranks, o, all)).toBeCloseTo(roc(f, o).area, 12);
+    const resample = all.map(() => Math.floor(random() * 300));
+    const picked = (a: Float64Array) => Float64Array.from(resample, (i) => a[i]);
+    expect(rocAreaByRank(ranks, o, resample)).toBeCloseTo(roc(picked(f), picked(o)).area, 12);
   });
 });

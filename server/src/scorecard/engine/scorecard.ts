@@ -34,6 +34,40 @@ export type PairScores = Omit<
   'districtId' | 'districtName' | 'from' | 'to' | 'source' | 'bulletins' | 'agreement'
 >;
 
+/** Each pair's place among the distinct issued chances, ascending, and how many there are. */
+export function chanceRanks(f: Float64Array): { rank: Int32Array; distinct: number } {
+  const values = [...new Set(f)].sort((a, b) => a - b);
+  const index = new Map(values.map((v, k) => [v, k]));
+  return { rank: Int32Array.from(f, (v) => index.get(v) as number), distinct: values.length };
+}
+
+/**
+ * The area under the ROC curve of the pairs `indices` (repeats allowed), as the Mann–Whitney
+ * probability that an event had a higher chance than a non-event, ties counted half. Counting by
+ * rank of chance makes it linear in the pairs, so it can be bootstrapped.
+ */
+export function rocAreaByRank(
+  ranks: { rank: Int32Array; distinct: number },
+  o: Float64Array,
+  indices: readonly number[],
+): number {
+  const events = new Float64Array(ranks.distinct);
+  const nonEvents = new Float64Array(ranks.distinct);
+  for (const i of indices) {
+    if (o[i]) events[ranks.rank[i]]++;
+    else nonEvents[ranks.rank[i]]++;
+  }
+  let below = 0;
+  let wins = 0;
+  let nEvents = 0;
+  for (let k = 0; k < ranks.distinct; k++) {
+    wins += events[k] * (below + nonEvents[k] / 2);
+    below += nonEvents[k];
+    nEvents += events[k];
+  }
+  return nEvents > 0 && below > 0 ? wins / (nEvents * below) : Number.NaN;
+}
+
 function groupInto(groups: Map<string, number[]>, key: string, index: number): void {
   const group = groups.get(key);
   if (group) group.push(index);
@@ -78,13 +112,26 @@ export function scorePairs(pairs: readonly ScorecardPair[], options: ScoreOption
 
   const sub = (values: Float64Array, indices: readonly number[]) =>
     Float64Array.from(indices, (i) => values[i]);
-  const brierOf = (indices: readonly number[]) => brierScore(sub(f, indices), sub(o, indices));
+  const hasRef = pairs.map((p) => p.climatologyChance !== null);
+  // The bootstrap evaluates these a thousand times over thousands of pairs: plain loops, no copies.
+  const brierOf = (indices: readonly number[]) => {
+    let sum = 0;
+    for (const i of indices) sum += (f[i] - o[i]) ** 2;
+    return indices.length ? sum / indices.length : Number.NaN;
+  };
   // Skill on the pairs that have a reference, so both scores rest on the same cases.
   const skillOf = (indices: readonly number[]) => {
-    const use = indices.filter((i) => pairs[i].climatologyChance !== null);
-    return brierSkill(brierOf(use), brierScore(sub(ref, use), sub(o, use)));
+    let bs = 0;
+    let bsRef = 0;
+    for (const i of indices)
+      if (hasRef[i]) {
+        bs += (f[i] - o[i]) ** 2;
+        bsRef += (ref[i] - o[i]) ** 2;
+      }
+    return brierSkill(bs, bsRef);
   };
-  const rocAreaOf = (indices: readonly number[]) => roc(sub(f, indices), sub(o, indices)).area;
+  const ranks = chanceRanks(f);
+  const rocAreaOf = (indices: readonly number[]) => rocAreaByRank(ranks, o, indices);
   const boot = (statistic: (indices: number[]) => number) =>
     options.resamples > 0 && days.length > 1
       ? interval(
