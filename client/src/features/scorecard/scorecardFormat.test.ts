@@ -129,6 +129,10 @@ describe('skillVerdict', () => {
   ])('skill %s with interval %j', (skill, interval, verdict) => {
     expect(skillVerdict(skill, interval)).toMatch(verdict);
   });
+
+  it('says so when the bulletins issued the usual chances themselves (skill 0 by definition)', () => {
+    expect(skillVerdict(0, { lower: 0, upper: 0 }, true)).toMatch(/its usual chance/);
+  });
 });
 
 describe('proposedSeason', () => {

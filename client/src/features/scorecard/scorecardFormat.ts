@@ -53,8 +53,14 @@ export const SCORE_EXPLANATIONS = {
 } as const;
 
 /** A plain verdict on the skill, read from its interval where there is one. */
-export function skillVerdict(skill: number | null, interval: ScoreInterval | null): string {
+export function skillVerdict(
+  skill: number | null,
+  interval: ScoreInterval | null,
+  sameAsUsual = false,
+): string {
   if (skill === null) return 'No skill: the bulletins had no usual chances to compare with.';
+  // A bulletin drafted from the all-days outlook issues the usual chances themselves.
+  if (sameAsUsual) return 'The bulletins gave each block its usual chance, so there was nothing to beat.';
   if (interval) {
     if (interval.lower > 0) return 'Better than the usual chance, beyond what chance sampling explains.';
     if (interval.upper < 0) return 'Worse than the usual chance, beyond what chance sampling explains.';

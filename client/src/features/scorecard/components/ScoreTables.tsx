@@ -54,7 +54,11 @@ export function ScoreSummary({ view }: { view: ScorecardView }) {
     {
       name: 'Brier skill score',
       value: formatScore(view.skill, view.skillInterval),
-      explanation: `${SCORE_EXPLANATIONS.skill} ${skillVerdict(view.skill, view.skillInterval)}`,
+      explanation: `${SCORE_EXPLANATIONS.skill} ${skillVerdict(
+        view.skill,
+        view.skillInterval,
+        view.brier !== null && view.brier === view.climatologyBrier,
+      )}`,
     },
     {
       name: 'ROC area',
