@@ -66,7 +66,7 @@ describe('the scientist reads the scorecard of sent bulletins', () => {
   }, 120_000);
   afterAll(() => browser.close());
 
-  it('picks Riverbend and two weeks, sees the scores, the reliability diagram and the worst blocks, and downloads the pairs', async () => {
+  it('picks Riverbend and two weeks, sees the scores, the reliability diagram and the worst blocks, and downloads the pairs and the report', async () => {
     const { page } = browser;
     await page.getByRole('link', { name: 'Scorecard' }).click();
     await page.getByRole('heading', { name: 'Scorecard', level: 1 }).waitFor();
@@ -109,6 +109,18 @@ describe('the scientist reads the scorecard of sent bulletins', () => {
       .split(/\r?\n/);
     expect(lines[0]).toBe('date,block_code,block_name,bulletin,chance,climatology_chance,observed,source');
     expect(lines.length).toBeGreaterThan(1);
+
+    const [report] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('button', { name: 'Download the season’s report (PDF)' }).click(),
+    ]);
+    expect(report.suggestedFilename()).toBe(`scorecard-riverbend-${FROM}-to-${TO}-radar.pdf`);
+    // Every PDF starts with its version header (ISO 32000-1, 7.5.2).
+    expect(
+      readFileSync((await report.path()) as string)
+        .subarray(0, 5)
+        .toString('latin1'),
+    ).toBe('%PDF-');
     await page.screenshot({ path: screenshot('scorecard-scientist'), fullPage: true });
     expect(outside).toEqual([]);
   }, 240_000);
