@@ -20,7 +20,8 @@ export const SECTION_ROLES: Record<Section, readonly Role[]> = {
   intake: ['scientist'],
   regimes: ['scientist'],
   outlook: ['scientist', 'writer'],
-  bulletins: ['scientist', 'writer'],
+  // The administrator reviews bulletins too (an approver other than the author: DESIGN §3.7).
+  bulletins: ['scientist', 'writer', 'admin'],
   inbox: ['officer'],
   scorecard: ['scientist', 'admin'],
   admin: ['admin'],

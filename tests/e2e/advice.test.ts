@@ -14,7 +14,7 @@ describe('the scientist keeps the advice rules and crop calendars', () => {
 
   it('edits a shipped rule and sees the live preview follow the example week and the text', async () => {
     const { page } = browser;
-    await page.goto(`${baseUrl()}/bulletins`);
+    await page.goto(`${baseUrl()}/bulletins/rules`);
     const table = page.getByRole('table', { name: 'Advice rules' });
     // The defaults were loaded into the empty database at first start.
     await table.getByText(/^Lightning: storms are possible/).waitFor();

@@ -23,12 +23,12 @@ describe('Navigation by role', () => {
     expect(screen.getByText('Extension officer')).toBeTruthy();
   });
 
-  it('shows an admin Scorecard and Admin, in that order', async () => {
+  it('shows an admin Bulletins (to review them), Scorecard and Admin, in that order', async () => {
     renderApp('/', {
       as: admin,
       api: { 'GET /api/districts': { body: [] }, 'GET /api/blocks': { body: [] } },
     });
-    expect(await sectionLinks()).toEqual(['Scorecard', 'Admin']);
+    expect(await sectionLinks()).toEqual(['Bulletins', 'Scorecard', 'Admin']);
   });
 
   it('refuses a section the role lacks, even by typed address', async () => {

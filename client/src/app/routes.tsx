@@ -27,15 +27,19 @@ const TrackDetailPage = lazy(() => import('../features/intake/tracks/components/
 const BulletinsLayout = lazy(() => import('./routes/BulletinsLayout'));
 const AdviceRulesPage = lazy(() => import('../features/advice/components/AdviceRulesPage'));
 const CropCalendarsPage = lazy(() => import('../features/advice/components/CropCalendarsPage'));
+const BulletinsListPage = lazy(() => import('../features/bulletins/components/BulletinsListPage'));
+const BulletinPage = lazy(() => import('../features/bulletins/components/BulletinPage'));
+const InboxLayout = lazy(() => import('./routes/InboxLayout'));
+const InboxListPage = lazy(() => import('../features/inbox/components/InboxListPage'));
+const InboxBulletinPage = lazy(() => import('../features/inbox/components/InboxBulletinPage'));
 
 const placeholderSections: Record<
-  Exclude<Section, 'admin' | 'intake' | 'bulletins'>,
+  Exclude<Section, 'admin' | 'intake' | 'bulletins' | 'inbox'>,
   LazyExoticComponent<ComponentType>
 > = {
   atlas: lazy(() => import('./routes/AtlasPage')),
   regimes: lazy(() => import('./routes/RegimesPage')),
   outlook: lazy(() => import('./routes/OutlookPage')),
-  inbox: lazy(() => import('./routes/InboxPage')),
   scorecard: lazy(() => import('./routes/ScorecardPage')),
 };
 
@@ -91,9 +95,23 @@ export const routes: RouteObject[] = [
                   </RequireSection>
                 ),
                 children: [
-                  { index: true, element: <Navigate to={paths.bulletins.rules} replace /> },
+                  { index: true, element: <BulletinsListPage /> },
                   { path: paths.bulletins.rules, element: <AdviceRulesPage /> },
                   { path: paths.bulletins.calendars, element: <CropCalendarsPage /> },
+                  { path: ':bulletinId', element: <BulletinPage /> },
+                  { path: '*', element: <NotFoundPage /> },
+                ],
+              },
+              {
+                path: paths.section.inbox,
+                element: (
+                  <RequireSection section="inbox">
+                    <InboxLayout />
+                  </RequireSection>
+                ),
+                children: [
+                  { index: true, element: <InboxListPage /> },
+                  { path: ':bulletinId', element: <InboxBulletinPage /> },
                   { path: '*', element: <NotFoundPage /> },
                 ],
               },

@@ -1,5 +1,10 @@
 import type { Section } from '@stormhour/shared';
 
+/** The review steps a bulletin's page can ask the server for. */
+export type BulletinAction = 'submit' | 'approve' | 'return' | 'send' | 'withdraw';
+/** The forms a bulletin can be downloaded in. */
+export type BulletinExportFormat = 'pdf' | 'cap' | 'text' | 'sms';
+
 /** Every route path of the app, so links, guards and tests agree. */
 export const paths = {
   signIn: '/sign-in',
@@ -24,8 +29,14 @@ export const paths = {
     calendars: '/admin/crop-calendars',
   },
   bulletins: {
+    list: '/bulletins',
+    bulletin: (id: number | string) => `/bulletins/${id}`,
     rules: '/bulletins/rules',
     calendars: '/bulletins/calendars',
+  },
+  inbox: {
+    list: '/inbox',
+    bulletin: (id: number | string) => `/inbox/${id}`,
   },
   intake: {
     uploads: '/intake',
@@ -92,8 +103,24 @@ export const api = {
   cropCalendarsImport: '/api/crop-calendars/import',
   adviceRules: '/api/advice-rules',
   adviceRule: (id: number) => `/api/advice-rules/${id}`,
+  bulletins: '/api/bulletins',
+  bulletin: (id: number) => `/api/bulletins/${id}`,
+  bulletinAction: (id: number, action: BulletinAction) => `/api/bulletins/${id}/${action}`,
+  bulletinVersion: (id: number, version: number) => `/api/bulletins/${id}/versions/${version}`,
+  bulletinDiff: (id: number) => `/api/bulletins/${id}/diff`,
+  bulletinReports: (id: number) => `/api/bulletins/${id}/reports`,
+  bulletinDelivery: (id: number) => `/api/bulletins/${id}/delivery`,
+  bulletinExport: (id: number, format: BulletinExportFormat) =>
+    `/api/bulletins/${id}/${format === 'cap' ? 'cap.xml' : format}`,
+  inbox: '/api/inbox',
+  inboxBulletin: (id: number) => `/api/inbox/${id}`,
+  inboxAcknowledge: (id: number) => `/api/inbox/${id}/acknowledge`,
+  inboxReports: (id: number) => `/api/inbox/${id}/reports`,
   outlook: '/api/outlook',
   outlookCsv: '/api/outlook.csv',
+  scorecard: '/api/scorecard',
+  scorecardCsv: '/api/scorecard.csv',
+  scorecardPdf: '/api/scorecard.pdf',
   atlas: {
     map: '/api/atlas/map',
     diurnal: '/api/atlas/diurnal',

@@ -1,0 +1,204 @@
+import {
+  InlineNotification,
+  Link,
+  Loading,
+  Tab,
+  TabList,
+  TabPanel,
+  TabPanels,
+  Tabs,
+  Tag,
+} from '@carbon/react';
+import { BULLETIN_STATE_LABELS, type BulletinView } from '@stormhour/shared';
+import { useState } from 'react';
+import { Link as RouterLink, useParams } from 'react-router';
+import { BulletinView as BulletinDocument } from '../../../components/bulletin/BulletinView';
+import { LoadError } from '../../../components/LoadError';
+import { PageSection } from '../../../components/PageSection';
+import { RegionBoundary } from '../../../components/RegionBoundary';
+import { paths } from '../../../config/paths';
+import { ApiError } from '../../../lib/apiError';
+import { useBulletin, useBulletinMutation } from '../api';
+import {
+  type BulletinForm,
+  checkBulletinForm,
+  formFromBulletin,
+  previewContent,
+  sameForm,
+} from '../bulletinForm';
+import { STATE_TAG, weekLabel } from '../bulletinWords';
+import { BulletinEditor } from './BulletinEditor';
+import { DeliveryPanel } from './DeliveryPanel';
+import { ExportsPanel } from './ExportsPanel';
+import { ReviewActions } from './ReviewActions';
+import { Timeline } from './Timeline';
+import { VersionsPanel } from './VersionsPanel';
+import { WarningsPanel } from './WarningsPanel';
+
+/** One bulletin: its text and preview, warnings, review steps, versions, history, delivery and exports. */
+export default function BulletinPage() {
+  const id = Number(useParams().bulletinId);
+  const bulletin = useBulletin(id);
+  // Kept here: a save brings a new version, which starts the workspace afresh, and its notice must stay.
+  const [notice, setNotice] = useState<string | null>(null);
+  if (bulletin.isError)
+    return <LoadError what="the bulletin" error={bulletin.error} onRetry={() => bulletin.refetch()} />;
+  if (!bulletin.data) return <Loading withOverlay={false} description="Loading the bulletin" />;
+  // A new saved version starts the form afresh from what the server stored.
+  return (
+    <Workspace
+      key={bulletin.data.currentVersion}
+      bulletin={bulletin.data}
+      notice={notice}
+      setNotice={setNotice}
+    />
+  );
+}
+
+function Workspace({
+  bulletin,
+  notice,
+  setNotice,
+}: {
+  bulletin: BulletinView;
+  notice: string | null;
+  setNotice: (notice: string | null) => void;
+}) {
+  const [form, setForm] = useState<BulletinForm>(() => formFromBulletin(bulletin));
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const save = useBulletinMutation(bulletin.id);
+  const dirty = bulletin.can.edit && !sameForm(form, formFromBulletin(bulletin));
+  const lastReturn = [...bulletin.events].reverse().find((e) => e.transition === 'return');
+  const sentOrAfter = bulletin.state === 'sent' || bulletin.state === 'withdrawn';
+
+  function submitSave() {
+    const checked = checkBulletinForm(form, bulletin.currentVersion);
+    if (!checked.ok) {
+      setErrors(checked.errors);
+      return;
+    }
+    setErrors({});
+    save.mutate(
+      { kind: 'save', body: checked.body },
+      {
+        onSuccess: (saved) => setNotice(`Saved as version ${saved.currentVersion}.`),
+        onError: (error) => {
+          if (error instanceof ApiError) setErrors(error.fieldErrors);
+        },
+      },
+    );
+  }
+
+  return (
+    <>
+      <p>
+        <Link as={RouterLink} to={paths.bulletins.list}>
+          All bulletins
+        </Link>
+      </p>
+      <header className="bulletin-head">
+        <h2 className="section-title">
+          {bulletin.number}: {bulletin.districtName}
+        </h2>
+        <Tag type={STATE_TAG[bulletin.state]}>{BULLETIN_STATE_LABELS[bulletin.state]}</Tag>
+        <p className="cds--label-description">
+          {weekLabel(bulletin.weekStart)}. Written by {bulletin.authorEmail}; version{' '}
+          {bulletin.currentVersion}
+          {bulletin.approvedVersion ? `, approved version ${bulletin.approvedVersion}` : ''}.
+        </p>
+      </header>
+
+      {notice ? (
+        <InlineNotification
+          kind="success"
+          lowContrast
+          role="status"
+          title={notice}
+          onCloseButtonClick={() => setNotice(null)}
+        />
+      ) : null}
+      {bulletin.state === 'returned' && lastReturn?.comment ? (
+        <InlineNotification
+          kind="info"
+          lowContrast
+          hideCloseButton
+          title={`Returned by ${lastReturn.actor}:`}
+          subtitle={lastReturn.comment}
+        />
+      ) : null}
+      {bulletin.outlookChangedSinceDraft ? (
+        <InlineNotification
+          kind="warning"
+          lowContrast
+          hideCloseButton
+          title="The outlook’s data changed since this draft was made."
+          subtitle="Its numbers are those of the draft. Draft the week again if the new data should count."
+        />
+      ) : null}
+
+      <RegionBoundary region="the review steps">
+        <ReviewActions bulletin={bulletin} unsaved={dirty} onDone={setNotice} />
+      </RegionBoundary>
+
+      <div className={bulletin.can.edit ? 'bulletin-workspace' : undefined}>
+        {bulletin.can.edit ? (
+          <PageSection title="Text" region="the bulletin editor">
+            <BulletinEditor
+              bulletin={bulletin}
+              form={form}
+              onChange={setForm}
+              errors={errors}
+              saving={save.isPending}
+              saveError={save.error}
+              dirty={dirty}
+              onSave={submitSave}
+              onReset={() => {
+                setForm(formFromBulletin(bulletin));
+                setErrors({});
+              }}
+            />
+          </PageSection>
+        ) : null}
+        <PageSection
+          title={bulletin.can.edit ? 'Preview as officers will see it' : 'The bulletin'}
+          region="the preview"
+        >
+          <WarningsPanel warnings={bulletin.warnings} />
+          {dirty ? <p className="cds--label-description">Warnings are checked again when you save.</p> : null}
+          <BulletinDocument content={previewContent(bulletin.content, form)} />
+        </PageSection>
+      </div>
+
+      <Tabs defaultSelectedIndex={sentOrAfter ? 2 : 0}>
+        <TabList aria-label="Bulletin details" className="bulletin-tabs">
+          <Tab>History</Tab>
+          <Tab>Versions and changes</Tab>
+          <Tab disabled={!sentOrAfter}>Delivery</Tab>
+          <Tab>Downloads</Tab>
+        </TabList>
+        <TabPanels>
+          <TabPanel>
+            <RegionBoundary region="the history">
+              <Timeline events={bulletin.events} />
+            </RegionBoundary>
+          </TabPanel>
+          <TabPanel>
+            <RegionBoundary region="the versions">
+              <VersionsPanel bulletin={bulletin} />
+            </RegionBoundary>
+          </TabPanel>
+          <TabPanel>
+            <RegionBoundary region="the delivery">
+              {sentOrAfter ? <DeliveryPanel bulletinId={bulletin.id} /> : <p>Not sent yet.</p>}
+            </RegionBoundary>
+          </TabPanel>
+          <TabPanel>
+            <RegionBoundary region="the downloads">
+              <ExportsPanel bulletin={bulletin} />
+            </RegionBoundary>
+          </TabPanel>
+        </TabPanels>
+      </Tabs>
+    </>
+  );
+}
