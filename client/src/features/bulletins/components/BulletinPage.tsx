@@ -13,12 +13,14 @@ import { BULLETIN_STATE_LABELS, type BulletinView } from '@stormhour/shared';
 import { useState } from 'react';
 import { Link as RouterLink, useParams } from 'react-router';
 import { BulletinView as BulletinDocument } from '../../../components/bulletin/BulletinView';
+import { FieldReportsTable } from '../../../components/bulletin/FieldReportsTable';
 import { LoadError } from '../../../components/LoadError';
 import { PageSection } from '../../../components/PageSection';
 import { RegionBoundary } from '../../../components/RegionBoundary';
 import { paths } from '../../../config/paths';
 import { ApiError } from '../../../lib/apiError';
-import { useBulletin, useBulletinMutation } from '../api';
+import { useSessionUser } from '../../../lib/auth';
+import { useBulletin, useBulletinMutation, useBulletinReports } from '../api';
 import {
   type BulletinForm,
   checkBulletinForm,
@@ -70,6 +72,8 @@ function Workspace({
   const dirty = bulletin.can.edit && !sameForm(form, formFromBulletin(bulletin));
   const lastReturn = [...bulletin.events].reverse().find((e) => e.transition === 'return');
   const sentOrAfter = bulletin.state === 'sent' || bulletin.state === 'withdrawn';
+  // The server gives the officers' reports to scientists and administrators, who score the chances.
+  const canSeeReports = useSessionUser().role !== 'writer';
 
   function submitSave() {
     const checked = checkBulletinForm(form, bulletin.currentVersion);
@@ -175,6 +179,7 @@ function Workspace({
           <Tab>Versions and changes</Tab>
           <Tab disabled={!sentOrAfter}>Delivery</Tab>
           <Tab>Downloads</Tab>
+          {canSeeReports ? <Tab disabled={!sentOrAfter}>Field reports</Tab> : null}
         </TabList>
         <TabPanels>
           <TabPanel>
@@ -197,8 +202,22 @@ function Workspace({
               <ExportsPanel bulletin={bulletin} />
             </RegionBoundary>
           </TabPanel>
+          {canSeeReports ? (
+            <TabPanel>
+              <RegionBoundary region="the field reports">
+                <StaffReports bulletinId={bulletin.id} enabled={sentOrAfter} />
+              </RegionBoundary>
+            </TabPanel>
+          ) : null}
         </TabPanels>
       </Tabs>
     </>
   );
+}
+
+function StaffReports({ bulletinId, enabled }: { bulletinId: number; enabled: boolean }) {
+  const reports = useBulletinReports(bulletinId, enabled);
+  if (reports.isError)
+    return <LoadError what="the field reports" error={reports.error} onRetry={() => reports.refetch()} />;
+  return <FieldReportsTable reports={reports.data ?? []} loading={reports.isLoading} withOfficer />;
 }
