@@ -135,8 +135,8 @@ export class BulletinsRepository {
       .orderBy(asc(bulletinVersions.version));
   }
 
-  async version(bulletinId: number, version: number) {
-    const [row] = await this.handle.db
+  async version(bulletinId: number, version: number, executor: Executor = this.handle.db) {
+    const [row] = await executor
       .select({
         version: bulletinVersions.version,
         content: bulletinVersions.content,

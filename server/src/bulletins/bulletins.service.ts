@@ -413,7 +413,7 @@ export class BulletinsService {
             },
           ],
         });
-      const current = (await this.repo.version(id, b.currentVersion)).content;
+      const current = (await this.repo.version(id, b.currentVersion, tx)).content;
       // The header, the outlook's numbers and the cautions stay as drafted.
       const content: BulletinContent = {
         ...current,

@@ -1,9 +1,10 @@
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { Inject, Injectable, Logger, type OnApplicationBootstrap } from '@nestjs/common';
-import { CreateSiteRequest, type Role } from '@stormhour/shared';
+import { CreateSiteRequest, type Role, type SessionUser } from '@stormhour/shared';
 import { CropCalendarService } from '../advice/crop-calendar.service.js';
 import { AuditService } from '../audit/audit.service.js';
+import { BulletinsService } from '../bulletins/bulletins.service.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { IntakeService } from '../intake/intake.service.js';
 import { SitesService } from '../radar/sites.service.js';
@@ -31,6 +32,7 @@ export class DemoSeeder implements OnApplicationBootstrap {
     private readonly sites: SitesService,
     private readonly intake: IntakeService,
     private readonly calendars: CropCalendarService,
+    private readonly bulletins: BulletinsService,
   ) {}
 
   async onApplicationBootstrap(): Promise<void> {
@@ -65,14 +67,43 @@ export class DemoSeeder implements OnApplicationBootstrap {
         districtId: d.id,
       });
     }
-    await this.users.transaction(async (tx) => {
-      for (const a of accounts) await this.users.insert({ ...a, passwordHash }, tx);
+    const made = await this.users.transaction(async (tx) => {
+      const rows = [];
+      for (const a of accounts) rows.push(await this.users.insert({ ...a, passwordHash }, tx));
       await this.audit.record(null, 'demo.seed', null, { accounts: accounts.length }, tx);
+      return rows;
     });
     const radar = await this.loadRadar();
+    const bulletin = radar ? await this.sendDemoBulletin(made) : '';
     this.logger.log(
-      `Demo scenario loaded in ${Date.now() - started} ms: ${accounts.length} demo accounts${radar}.`,
+      `Demo scenario loaded in ${Date.now() - started} ms: ${accounts.length} demo accounts${radar}${bulletin}.`,
     );
+  }
+
+  /**
+   * One bulletin through the whole review, sent to Riverbend's officer, for the forecast week after the
+   * season (so the Inbox and the Scorecard have something to show). A failure is logged, not fatal.
+   */
+  private async sendDemoBulletin(
+    accounts: { id: number; email: string; name: string; role: Role; districtId: number | null }[],
+  ): Promise<string> {
+    const as = (role: Role): SessionUser | undefined => {
+      const a = accounts.find((x) => x.role === role);
+      return a && { id: a.id, email: a.email, name: a.name, role: a.role, districtId: a.districtId };
+    };
+    const [writer, scientist] = [as('writer'), as('scientist')];
+    const district = (await this.regionsRepo.listDistricts()).find((d) => d.code === 'RVB');
+    if (!writer || !scientist || !district) return '';
+    try {
+      const draft = await this.bulletins.create(writer, { districtId: district.id, weekStart: '2025-09-29' });
+      await this.bulletins.submit(writer, draft.id);
+      await this.bulletins.approve(scientist, draft.id, 'Demo bulletin, approved at first start.');
+      const sent = await this.bulletins.send(writer, draft.id);
+      return `; bulletin ${sent.number} sent to ${sent.recipientsCount} officer(s)`;
+    } catch (e) {
+      this.logger.warn(`The demo bulletin was not sent: ${e instanceof Error ? e.message : String(e)}`);
+      return '';
+    }
   }
 
   /**
