@@ -43,6 +43,7 @@ export default function BulletinPage() {
   const bulletin = useBulletin(id);
   // Kept here: a save brings a new version, which starts the workspace afresh, and its notice must stay.
   const [notice, setNotice] = useState<string | null>(null);
+  const [saved, setSaved] = useState<string | null>(null);
   if (bulletin.isError)
     return <LoadError what="the bulletin" error={bulletin.error} onRetry={() => bulletin.refetch()} />;
   if (!bulletin.data) return <Loading withOverlay={false} description="Loading the bulletin" />;
@@ -53,6 +54,8 @@ export default function BulletinPage() {
       bulletin={bulletin.data}
       notice={notice}
       setNotice={setNotice}
+      saved={saved}
+      setSaved={setSaved}
     />
   );
 }
@@ -61,10 +64,16 @@ function Workspace({
   bulletin,
   notice,
   setNotice,
+  saved,
+  setSaved,
 }: {
   bulletin: BulletinView;
+  /** What the last review step did, shown at the top beside the steps. */
   notice: string | null;
   setNotice: (notice: string | null) => void;
+  /** What the last save did, shown beside the save button where the writer is looking. */
+  saved: string | null;
+  setSaved: (saved: string | null) => void;
 }) {
   const [form, setForm] = useState<BulletinForm>(() => formFromBulletin(bulletin));
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -75,22 +84,22 @@ function Workspace({
   // The server gives the officers' reports to scientists and administrators, who score the chances.
   const canSeeReports = useSessionUser().role !== 'writer';
 
-  function submitSave() {
+  async function submitSave() {
     const checked = checkBulletinForm(form, bulletin.currentVersion);
     if (!checked.ok) {
       setErrors(checked.errors);
       return;
     }
     setErrors({});
-    save.mutate(
-      { kind: 'save', body: checked.body },
-      {
-        onSuccess: (saved) => setNotice(`Saved as version ${saved.currentVersion}.`),
-        onError: (error) => {
-          if (error instanceof ApiError) setErrors(error.fieldErrors);
-        },
-      },
-    );
+    // Awaited rather than a per-call callback: the saved version re-keys this workspace, and a callback
+    // of an unmounted component never runs.
+    try {
+      setSaved(null);
+      const next = await save.mutateAsync({ kind: 'save', body: checked.body });
+      setSaved(`Saved as version ${next.currentVersion}.`);
+    } catch (error) {
+      if (error instanceof ApiError) setErrors(error.fieldErrors);
+    }
   }
 
   return (
@@ -155,6 +164,7 @@ function Workspace({
               saving={save.isPending}
               saveError={save.error}
               dirty={dirty}
+              savedMessage={dirty ? null : saved}
               onSave={submitSave}
               onReset={() => {
                 setForm(formFromBulletin(bulletin));
