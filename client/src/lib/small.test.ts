@@ -6,7 +6,7 @@ import { withQuery } from './queryString';
 describe('landingPathFor', () => {
   // The first section of each role in SECTIONS order (shared/roles.ts).
   it.each([
-    ['admin', '/scorecard'],
+    ['admin', '/bulletins'],
     ['scientist', '/atlas'],
     ['writer', '/outlook'],
     ['officer', '/inbox'],
