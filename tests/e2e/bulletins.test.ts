@@ -75,7 +75,9 @@ describe('a bulletin from draft to the officer’s field report', () => {
     const outlook = page.getByRole('table', { name: 'Afternoon storm chance by block' });
     expect(await outlook.locator('tbody tr').count()).toBeGreaterThan(0);
 
-    await form.getByLabel('Summary').fill('Afternoon storms are **likely** over the hills this week.');
+    await form
+      .getByLabel('Summary', { exact: true })
+      .fill('Afternoon storms are **likely** over the hills this week.');
     await page
       .getByRole('region', { name: 'Summary: preview' })
       .locator('strong', { hasText: 'likely' })
@@ -151,7 +153,7 @@ describe('a bulletin from draft to the officer’s field report', () => {
     const { page } = browser;
     await signIn(page, 'admin@vessary.example');
     await page.goto(`${baseUrl()}/admin/mail`);
-    await page.getByLabel('Search received messages').fill(number);
+    await page.getByPlaceholder('Search by subject, sender or recipient').fill(number);
     const received = page.getByRole('table', { name: 'Received messages' });
     const rows = received.locator('tbody tr').filter({ hasText: number });
     await rows.first().waitFor({ timeout: 30_000 });

@@ -206,4 +206,57 @@ describe('Bulletins › one bulletin', () => {
     await userEvent.click(within(dialog).getByRole('button', { name: 'Send to officers' }));
     expect(server.calls.some((c) => c.path.endsWith('/send'))).toBe(false);
   }, 30_000);
+
+  it('shows a sent bulletin’s delivery per officer and needs a reason to withdraw it', async () => {
+    const sent = aBulletinView({
+      state: 'sent',
+      approvedVersion: 1,
+      sentAt: '2025-06-28T03:00:00.000Z',
+      can: { edit: false, submit: false, approve: false, return: false, send: false, withdraw: true },
+    });
+    const recipient = { attempts: 1, nextAttemptAt: null, sentAt: null, messageId: '<m@stormhour.invalid>' };
+    const { server } = renderApp('/bulletins/5', {
+      as: scientist,
+      api: routes(sent, {
+        'GET /api/bulletins/5/delivery': {
+          body: {
+            bulletinId: 5,
+            key: 'bulletin:5:v1',
+            recipients: [
+              {
+                ...recipient,
+                id: 1,
+                recipient: 'officer.riverbend@vessary.example',
+                state: 'sent',
+                lastError: null,
+              },
+              {
+                ...recipient,
+                id: 2,
+                recipient: 'officer2.riverbend@vessary.example',
+                state: 'failed',
+                lastError: '550 no such mailbox',
+              },
+            ],
+            withdrawalKey: null,
+            withdrawal: [],
+            counts: { queued: 0, sending: 0, sent: 1, failed: 1 },
+          },
+        },
+        'GET /api/bulletins/5/reports': { body: [] },
+      }),
+    });
+    await userEvent.click(await screen.findByRole('tab', { name: 'Delivery' }, { timeout: 5000 }));
+    const delivery = await screen.findByRole('table', { name: 'Delivery' });
+    const failed = within(delivery).getByRole('row', { name: /officer2\.riverbend/ });
+    expect(failed.textContent).toContain('Failed');
+    expect(failed.textContent).toContain('550 no such mailbox');
+    expect(screen.getByText(/1 sent, 0 on the way, 1 failed\./)).toBeTruthy();
+
+    await userEvent.click(screen.getByRole('button', { name: 'Withdraw' }));
+    const dialog = await screen.findByRole('dialog');
+    await userEvent.click(within(dialog).getByRole('button', { name: 'Withdraw' }));
+    expect(await within(dialog).findByText('Give the reason for withdrawing')).toBeTruthy();
+    expect(server.calls.some((c) => c.path.endsWith('/withdraw'))).toBe(false);
+  }, 30_000);
 });

@@ -17,6 +17,7 @@ export function BulletinEditor({
   saving,
   saveError,
   dirty,
+  savedMessage,
   onSave,
   onReset,
 }: {
@@ -27,6 +28,7 @@ export function BulletinEditor({
   saving: boolean;
   saveError: unknown;
   dirty: boolean;
+  savedMessage: string | null;
   onSave: () => void;
   onReset: () => void;
 }) {
@@ -140,6 +142,9 @@ export function BulletinEditor({
         <Button kind="secondary" size="sm" disabled={saving || !dirty} onClick={onReset}>
           Undo changes
         </Button>
+        <span role="status" className="save-status">
+          {savedMessage}
+        </span>
       </div>
     </form>
   );

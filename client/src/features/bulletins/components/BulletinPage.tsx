@@ -13,12 +13,14 @@ import { BULLETIN_STATE_LABELS, type BulletinView } from '@stormhour/shared';
 import { useState } from 'react';
 import { Link as RouterLink, useParams } from 'react-router';
 import { BulletinView as BulletinDocument } from '../../../components/bulletin/BulletinView';
+import { FieldReportsTable } from '../../../components/bulletin/FieldReportsTable';
 import { LoadError } from '../../../components/LoadError';
 import { PageSection } from '../../../components/PageSection';
 import { RegionBoundary } from '../../../components/RegionBoundary';
 import { paths } from '../../../config/paths';
 import { ApiError } from '../../../lib/apiError';
-import { useBulletin, useBulletinMutation } from '../api';
+import { useSessionUser } from '../../../lib/auth';
+import { useBulletin, useBulletinMutation, useBulletinReports } from '../api';
 import {
   type BulletinForm,
   checkBulletinForm,
@@ -41,6 +43,7 @@ export default function BulletinPage() {
   const bulletin = useBulletin(id);
   // Kept here: a save brings a new version, which starts the workspace afresh, and its notice must stay.
   const [notice, setNotice] = useState<string | null>(null);
+  const [saved, setSaved] = useState<string | null>(null);
   if (bulletin.isError)
     return <LoadError what="the bulletin" error={bulletin.error} onRetry={() => bulletin.refetch()} />;
   if (!bulletin.data) return <Loading withOverlay={false} description="Loading the bulletin" />;
@@ -51,6 +54,8 @@ export default function BulletinPage() {
       bulletin={bulletin.data}
       notice={notice}
       setNotice={setNotice}
+      saved={saved}
+      setSaved={setSaved}
     />
   );
 }
@@ -59,10 +64,16 @@ function Workspace({
   bulletin,
   notice,
   setNotice,
+  saved,
+  setSaved,
 }: {
   bulletin: BulletinView;
+  /** What the last review step did, shown at the top beside the steps. */
   notice: string | null;
   setNotice: (notice: string | null) => void;
+  /** What the last save did, shown beside the save button where the writer is looking. */
+  saved: string | null;
+  setSaved: (saved: string | null) => void;
 }) {
   const [form, setForm] = useState<BulletinForm>(() => formFromBulletin(bulletin));
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -70,23 +81,25 @@ function Workspace({
   const dirty = bulletin.can.edit && !sameForm(form, formFromBulletin(bulletin));
   const lastReturn = [...bulletin.events].reverse().find((e) => e.transition === 'return');
   const sentOrAfter = bulletin.state === 'sent' || bulletin.state === 'withdrawn';
+  // The server gives the officers' reports to scientists and administrators, who score the chances.
+  const canSeeReports = useSessionUser().role !== 'writer';
 
-  function submitSave() {
+  async function submitSave() {
     const checked = checkBulletinForm(form, bulletin.currentVersion);
     if (!checked.ok) {
       setErrors(checked.errors);
       return;
     }
     setErrors({});
-    save.mutate(
-      { kind: 'save', body: checked.body },
-      {
-        onSuccess: (saved) => setNotice(`Saved as version ${saved.currentVersion}.`),
-        onError: (error) => {
-          if (error instanceof ApiError) setErrors(error.fieldErrors);
-        },
-      },
-    );
+    // Awaited rather than a per-call callback: the saved version re-keys this workspace, and a callback
+    // of an unmounted component never runs.
+    try {
+      setSaved(null);
+      const next = await save.mutateAsync({ kind: 'save', body: checked.body });
+      setSaved(`Saved as version ${next.currentVersion}.`);
+    } catch (error) {
+      if (error instanceof ApiError) setErrors(error.fieldErrors);
+    }
   }
 
   return (
@@ -151,6 +164,7 @@ function Workspace({
               saving={save.isPending}
               saveError={save.error}
               dirty={dirty}
+              savedMessage={dirty ? null : saved}
               onSave={submitSave}
               onReset={() => {
                 setForm(formFromBulletin(bulletin));
@@ -175,6 +189,7 @@ function Workspace({
           <Tab>Versions and changes</Tab>
           <Tab disabled={!sentOrAfter}>Delivery</Tab>
           <Tab>Downloads</Tab>
+          {canSeeReports ? <Tab disabled={!sentOrAfter}>Field reports</Tab> : null}
         </TabList>
         <TabPanels>
           <TabPanel>
@@ -197,8 +212,22 @@ function Workspace({
               <ExportsPanel bulletin={bulletin} />
             </RegionBoundary>
           </TabPanel>
+          {canSeeReports ? (
+            <TabPanel>
+              <RegionBoundary region="the field reports">
+                <StaffReports bulletinId={bulletin.id} enabled={sentOrAfter} />
+              </RegionBoundary>
+            </TabPanel>
+          ) : null}
         </TabPanels>
       </Tabs>
     </>
   );
+}
+
+function StaffReports({ bulletinId, enabled }: { bulletinId: number; enabled: boolean }) {
+  const reports = useBulletinReports(bulletinId, enabled);
+  if (reports.isError)
+    return <LoadError what="the field reports" error={reports.error} onRetry={() => reports.refetch()} />;
+  return <FieldReportsTable reports={reports.data ?? []} loading={reports.isLoading} withOfficer />;
 }

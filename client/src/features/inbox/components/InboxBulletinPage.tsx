@@ -2,20 +2,21 @@ import { Button, InlineNotification, Link, Loading } from '@carbon/react';
 import { useState } from 'react';
 import { Link as RouterLink, useParams } from 'react-router';
 import { BulletinView } from '../../../components/bulletin/BulletinView';
+import { FieldReportsTable } from '../../../components/bulletin/FieldReportsTable';
 import { LoadError } from '../../../components/LoadError';
 import { PageSection } from '../../../components/PageSection';
 import { paths } from '../../../config/paths';
 import { messageOf } from '../../../lib/apiError';
 import { formatDateTime } from '../../../lib/format';
-import { useAcknowledgeBulletin, useInboxBulletin } from '../api';
+import { useAcknowledgeBulletin, useFieldReports, useInboxBulletin } from '../api';
 import { FieldReportForm } from './FieldReportForm';
-import { FieldReportsTable } from './FieldReportsTable';
 
 /** One bulletin as the officer received it, with acknowledgement and field reports. */
 export default function InboxBulletinPage() {
   const id = Number(useParams().bulletinId);
   const bulletin = useInboxBulletin(id);
   const acknowledge = useAcknowledgeBulletin(id);
+  const reports = useFieldReports(id);
   const [filed, setFiled] = useState<string | null>(null);
 
   if (bulletin.isError)
@@ -68,7 +69,11 @@ export default function InboxBulletinPage() {
           Report per block what you saw during the week, storm or no storm: the reports score the chances that
           were issued.
         </p>
-        <FieldReportsTable bulletinId={b.id} />
+        {reports.isError ? (
+          <LoadError what="the field reports" error={reports.error} onRetry={() => reports.refetch()} />
+        ) : (
+          <FieldReportsTable reports={reports.data ?? []} loading={reports.isLoading} />
+        )}
         <h3 className="bulletin-view__heading">New report</h3>
         {filed ? (
           <InlineNotification

@@ -1,8 +1,6 @@
 import type { FieldReportView } from '@stormhour/shared';
-import { LoadError } from '../../../components/LoadError';
-import { SortableTable } from '../../../components/SortableTable';
-import { formatDateTime } from '../../../lib/format';
-import { useFieldReports } from '../api';
+import { formatDateTime } from '../../lib/format';
+import { SortableTable } from '../SortableTable';
 
 const HEADERS = [
   { key: 'block', header: 'Block' },
@@ -20,13 +18,20 @@ function damageText(r: FieldReportView): string {
   return parts.length ? parts.join(', ') : 'none';
 }
 
-/** The reports already filed on a bulletin. */
-export function FieldReportsTable({ bulletinId }: { bulletinId: number }) {
-  const reports = useFieldReports(bulletinId);
-  if (reports.isError)
-    return <LoadError what="the field reports" error={reports.error} onRetry={() => reports.refetch()} />;
-  const rows = (reports.data ?? []).map((r) => ({
+/** Field reports on a bulletin, for the officer who filed them and for the unit's staff. */
+export function FieldReportsTable({
+  reports,
+  loading,
+  withOfficer = false,
+}: {
+  reports: FieldReportView[];
+  loading: boolean;
+  /** Staff see reports of every officer of the district, so name who filed each. */
+  withOfficer?: boolean;
+}) {
+  const rows = reports.map((r) => ({
     id: String(r.id),
+    officer: r.officerEmail,
     block: r.blockName,
     storm: r.stormSeen ? 'seen' : 'none',
     startTime: r.startTime?.replace('T', ' ') ?? '–',
@@ -39,9 +44,9 @@ export function FieldReportsTable({ bulletinId }: { bulletinId: number }) {
   return (
     <SortableTable
       label="Field reports filed"
-      headers={HEADERS}
+      headers={withOfficer ? [{ key: 'officer', header: 'Officer' }, ...HEADERS] : HEADERS}
       rows={rows}
-      empty={reports.isLoading ? 'Loading…' : 'No report filed yet.'}
+      empty={loading ? 'Loading…' : 'No report filed yet.'}
       renderCell={(header, value) => (header === 'at' ? formatDateTime(String(value)) : String(value))}
     />
   );
