@@ -2,7 +2,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { type BrowserContext, chromium, type Page } from 'playwright-core';
-import { inject } from 'vitest';
+import { expect, inject } from 'vitest';
 
 export const DEMO_PASSWORD = 'stormhour-demo';
 export const baseUrl = () => inject('baseUrl');
@@ -60,4 +60,25 @@ export function watchOutsideRequests(page: Page): string[] {
     if (!['data:', 'blob:'].includes(url.protocol) && url.host !== own) outside.push(req.url());
   });
   return outside;
+}
+
+/** An access token for a demo account, for steps a test takes through the API rather than the screen. */
+export async function apiToken(email: string): Promise<string> {
+  const res = await fetch(`${baseUrl()}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
+  });
+  expect(res.status).toBe(200);
+  return ((await res.json()) as { accessToken: string }).accessToken;
+}
+
+/** One JSON call with a token; the status and parsed body, for the test to check. */
+export async function callApi(token: string, method: string, path: string, body?: unknown) {
+  const res = await fetch(`${baseUrl()}${path}`, {
+    method,
+    headers: { Authorization: `Bearer ${token}`, 'content-type': 'application/json' },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  });
+  return { status: res.status, body: (await res.json()) as Record<string, unknown> };
 }

@@ -2,9 +2,10 @@ import { fileURLToPath } from 'node:url';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
+  apiToken,
   type Browser,
   baseUrl,
-  DEMO_PASSWORD,
+  callApi,
   openBrowser,
   signIn,
   watchOutsideRequests,
@@ -15,25 +16,6 @@ const screenshot = (name: string) => fileURLToPath(new URL(`./screenshots/${name
 // The demo has one extension officer per district (server/src/demo/demo.seeder.ts).
 const RIVERBEND_OFFICER = 'officer.riverbend@vessary.example';
 const OTHER_OFFICERS = ['lakeshore', 'hillfoot', 'upland'].map((d) => `officer.${d}@vessary.example`);
-
-async function apiToken(email: string): Promise<string> {
-  const res = await fetch(`${baseUrl()}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
-  });
-  expect(res.status).toBe(200);
-  return ((await res.json()) as { accessToken: string }).accessToken;
-}
-
-async function callApi(token: string, method: string, path: string, body?: unknown) {
-  const res = await fetch(`${baseUrl()}${path}`, {
-    method,
-    headers: { Authorization: `Bearer ${token}`, 'content-type': 'application/json' },
-    body: body === undefined ? undefined : JSON.stringify(body),
-  });
-  return { status: res.status, body: (await res.json()) as Record<string, unknown> };
-}
 
 async function openBulletin(page: Page, path: string) {
   await page.goto(`${baseUrl()}${path}`);

@@ -2,9 +2,10 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
+  apiToken,
   type Browser,
   baseUrl,
-  DEMO_PASSWORD,
+  callApi,
   openBrowser,
   signIn,
   watchOutsideRequests,
@@ -17,25 +18,6 @@ const screenshot = (name: string) => fileURLToPath(new URL(`./screenshots/${name
 const WEEKS = ['2025-07-07', '2025-07-14'];
 const FROM = '2025-07-07';
 const TO = '2025-07-20';
-
-async function apiToken(email: string): Promise<string> {
-  const res = await fetch(`${baseUrl()}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
-  });
-  expect(res.status).toBe(200);
-  return ((await res.json()) as { accessToken: string }).accessToken;
-}
-
-async function callApi(token: string, method: string, path: string, body?: unknown) {
-  const res = await fetch(`${baseUrl()}${path}`, {
-    method,
-    headers: { Authorization: `Bearer ${token}`, 'content-type': 'application/json' },
-    body: body === undefined ? undefined : JSON.stringify(body),
-  });
-  return { status: res.status, body: (await res.json()) as Record<string, unknown> };
-}
 
 /** The writer drafts and sends a Riverbend bulletin for each week, a scientist approving it in between. */
 async function sendRiverbendBulletins() {
