@@ -16,7 +16,12 @@ import { RegimesService } from '../regimes/regimes.service.js';
 import { RegionsRepository } from '../regions/regions.repository.js';
 import { areaAndPerimeter, bufferedAreaKm2, coverageFraction, toPlane } from './engine/block-coverage.js';
 import { blocksWithin, ownBlock } from './engine/neighbourhood.js';
-import { type AfternoonDaily, computeOutlook, type OutlookResult } from './engine/outlook.js';
+import {
+  type AfternoonDaily,
+  computeOutlook,
+  type OutlookInput,
+  type OutlookResult,
+} from './engine/outlook.js';
 import { type ScanHours, scannedDays } from './engine/scan-hours.js';
 import { type EventColumns, OutlookRepository, type TimeRange } from './outlook.repository.js';
 import { outlookCsv } from './outlook-csv.js';
@@ -141,18 +146,7 @@ export class OutlookService {
     const days: number[] = [];
     for (let d = dayOfDate(q.from); d <= dayOfDate(q.to); d++) days.push(d);
     const result = computeOutlook({
-      blocks: data.blocks.map((b) => ({ coverage: b.coverage, countingAreaKm2: b.countingAreaKm2 })),
-      eventTimes: data.events.time,
-      eventBlocks: data.eventBlocks,
-      scanHours: data.scanHours,
-      utcOffsetMinutes: offset,
-      intervalMin: site.intervalMin,
-      binHours: q.binHours,
-      afternoon: { fromHour: q.afternoonFrom, toHour: q.afternoonTo },
-      minAvailability: site.settings.minAvailability,
-      minBlockCoverage: site.settings.minBlockCoverage,
-      interval: q.interval,
-      level: OUTLOOK_LEVEL,
+      ...engineInput(site, q, data),
       days: Int32Array.from(days),
       withIntervals: false,
       withDaily: true,
@@ -199,20 +193,7 @@ export class OutlookService {
     }
 
     const settings = site.settings;
-    const common = {
-      blocks: data.blocks.map((b) => ({ coverage: b.coverage, countingAreaKm2: b.countingAreaKm2 })),
-      eventTimes: data.events.time,
-      eventBlocks: data.eventBlocks,
-      scanHours: data.scanHours,
-      utcOffsetMinutes: offset,
-      intervalMin: site.intervalMin,
-      binHours: q.binHours,
-      afternoon: { fromHour: q.afternoonFrom, toHour: q.afternoonTo },
-      minAvailability: settings.minAvailability,
-      minBlockCoverage: settings.minBlockCoverage,
-      interval: q.interval,
-      level: OUTLOOK_LEVEL,
-    };
+    const common = engineInput(site, q, data);
     const result = computeOutlook({ ...common, days: Int32Array.from(selected) });
     const climatology: OutlookResult =
       q.regime === ALL_DAYS
@@ -381,6 +362,28 @@ interface Loaded {
     coverage: number;
     countingAreaKm2: number;
   })[];
+}
+
+/** What the outlook engine counts with, for any set of days: the loaded columns and the site's settings. */
+function engineInput(
+  site: Awaited<ReturnType<SitesService['get']>>,
+  q: OutlookQuery,
+  data: Loaded,
+): Omit<OutlookInput, 'days'> {
+  return {
+    blocks: data.blocks.map((b) => ({ coverage: b.coverage, countingAreaKm2: b.countingAreaKm2 })),
+    eventTimes: data.events.time,
+    eventBlocks: data.eventBlocks,
+    scanHours: data.scanHours,
+    utcOffsetMinutes: site.utcOffsetMinutes,
+    intervalMin: site.intervalMin,
+    binHours: q.binHours,
+    afternoon: { fromHour: q.afternoonFrom, toHour: q.afternoonTo },
+    minAvailability: site.settings.minAvailability,
+    minBlockCoverage: site.settings.minBlockCoverage,
+    interval: q.interval,
+    level: OUTLOOK_LEVEL,
+  };
 }
 
 /** Onset starts are stored as lon/lat; the neighbourhood is measured in the site plane. */
