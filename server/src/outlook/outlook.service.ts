@@ -18,6 +18,7 @@ import { areaAndPerimeter, bufferedAreaKm2, coverageFraction, toPlane } from './
 import { blocksWithin, ownBlock } from './engine/neighbourhood.js';
 import {
   type AfternoonDaily,
+  afternoonRates,
   computeOutlook,
   type OutlookInput,
   type OutlookResult,
@@ -195,10 +196,11 @@ export class OutlookService {
     const settings = site.settings;
     const common = engineInput(site, q, data);
     const result = computeOutlook({ ...common, days: Int32Array.from(selected) });
-    const climatology: OutlookResult =
+    // The regime's ratio needs only the all-days afternoon rates.
+    const climatology =
       q.regime === ALL_DAYS
-        ? result
-        : computeOutlook({ ...common, days: Int32Array.from(allDays), withIntervals: false });
+        ? result.blocks.map((r) => r.afternoon.rate)
+        : afternoonRates({ ...common, days: Int32Array.from(allDays) });
 
     const bins = Array.from({ length: 24 / q.binHours }, (_, index) => {
       const fromHour = index * q.binHours;
@@ -207,7 +209,7 @@ export class OutlookService {
     });
     const blocks: OutlookBlock[] = data.blocks.map((b, i) => {
       const r = result.blocks[i];
-      const climate = climatology.blocks[i].afternoon.rate;
+      const climate = climatology[i];
       const rate = r.afternoon.rate;
       return {
         blockId: b.id,

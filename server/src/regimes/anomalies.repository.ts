@@ -27,6 +27,9 @@ export interface StoredField {
 const toBytea = (values: Buffer) => sql`decode(${values.toString('base64')}, 'base64')`;
 const fromBytea = (column: typeof anomalyFields.values | typeof anomalyClimatologies.values) =>
   sql<string>`encode(${column}, 'base64')`;
+/** Fields per result row when many are read at once (see fields()). */
+const FIELDS_PER_ROW = 128;
+type FieldMeta = [AnomalyVariable, string, number, number, number, number, number, number];
 const float32 = (base64: string) => new Float32Array(Uint8Array.from(Buffer.from(base64, 'base64')).buffer);
 
 @Injectable()
@@ -122,31 +125,51 @@ export class AnomaliesRepository {
       .orderBy(asc(anomalyFields.product), asc(anomalyFields.variable), asc(anomalyFields.sourceFile));
   }
 
+  /**
+   * The stored fields of a level and product in a period, in date order. Read in batches of
+   * FIELDS_PER_ROW fields per result row (metadata as JSON, the grids concatenated into one binary
+   * value): PGlite's conversion of each result row and field costs far more than the few hundred bytes
+   * of a daily grid, so a record of thousands of days comes back as a few dozen rows instead.
+   */
   async fields(
     levelHpa: number,
     from?: string,
     to?: string,
     product: AnomalyProduct = 'analysis',
   ): Promise<StoredField[]> {
-    const where = [eq(anomalyFields.levelHpa, levelHpa), eq(anomalyFields.product, product)];
-    if (from) where.push(gte(anomalyFields.date, from));
-    if (to) where.push(lte(anomalyFields.date, to));
-    const rows = await this.handle.db
-      .select({ ...getTableColumns(anomalyFields), values: fromBytea(anomalyFields.values) })
-      .from(anomalyFields)
-      .where(and(...where))
-      .orderBy(asc(anomalyFields.date));
-    return rows.map((r) => ({
-      variable: r.variable,
-      date: r.date,
-      nx: r.nx,
-      ny: r.ny,
-      lon0: r.lon0,
-      lat0: r.lat0,
-      dLon: r.dLon,
-      dLat: r.dLat,
-      values: float32(r.values),
-    }));
+    const params: unknown[] = [levelHpa, product];
+    let where = 'level_hpa = $1 and product = $2';
+    if (from) where += ` and date >= $${params.push(from)}`;
+    if (to) where += ` and date <= $${params.push(to)}`;
+    const res = await this.handle.pg.query<{ meta: FieldMeta[]; grids: string }>(
+      `with f as (
+         select row_number() over (order by date, id) - 1 as i, * from anomaly_fields where ${where}
+       )
+       select json_agg(json_build_array(variable, date, nx, ny, lon0, lat0, d_lon, d_lat) order by i) as meta,
+              encode(string_agg(values, ''::bytea order by i), 'base64') as grids
+       from f group by i / ${FIELDS_PER_ROW} order by min(i)`,
+      params,
+    );
+    const out: StoredField[] = [];
+    for (const row of res.rows) {
+      const values = float32(row.grids);
+      let offset = 0;
+      for (const [variable, date, nx, ny, lon0, lat0, dLon, dLat] of row.meta) {
+        out.push({
+          variable,
+          date,
+          nx,
+          ny,
+          lon0,
+          lat0,
+          dLon,
+          dLat,
+          values: values.subarray(offset, offset + nx * ny),
+        });
+        offset += nx * ny;
+      }
+    }
+    return out;
   }
 
   async count(): Promise<number> {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { dayOfDate, HOUR_MS, localDay, localHour, localMidnightUtc } from '../../radar/engine/local-time.js';
 import { jeffreysInterval } from './intervals.js';
 import { ownBlock } from './neighbourhood.js';
-import { computeOutlook, type OutlookInput } from './outlook.js';
+import { afternoonRates, computeOutlook, type OutlookInput } from './outlook.js';
 import { countScanHours } from './scan-hours.js';
 
 /** Hourly scans at half past every local hour of the given days, minus the hours listed as outages. */
@@ -86,6 +86,12 @@ describe('counting the outlook on a hand-made record', () => {
     expect(computeOutlook(input(days)).afternoonDaily).toBeUndefined();
   });
 
+  it('gives the afternoon rates alone exactly as the full count does (the climatology beside a regime)', () => {
+    // By hand: A 3 of 4, B 1 of 4, C no data; on days 0 and 2 only, A 1 of 2 and B 1 of 2.
+    expect(afternoonRates(input(days))).toEqual([0.75, 0.25, null]);
+    expect(afternoonRates(input([d0, d0 + 2]))).toEqual([0.5, 0.5, null]);
+  });
+
   it('gives the Jeffreys interval of x of n beside every rate', () => {
     const { blocks } = computeOutlook(input(days));
     const f = blocks[0].bins[4];
@@ -143,5 +149,58 @@ describe('local time', () => {
     expect(localHour(Date.parse('2025-06-01T06:14:00Z'), 345)).toBe(11);
     expect(localHour(Date.parse('2025-06-01T06:16:00Z'), 345)).toBe(12);
     expect(localHour(Date.parse('2025-06-01T23:00:00Z'), -300)).toBe(18);
+  });
+});
+
+describe('afternoon rates alone', () => {
+  it('equal the full count’s afternoon rates on random records (a neighbourhood, outages, odd offsets)', () => {
+    let seed = 11;
+    const random = () => {
+      seed = (seed * 1103515245 + 12345) % 2 ** 31;
+      return seed / 2 ** 31;
+    };
+    for (let trial = 0; trial < 25; trial++) {
+      const offset = [330, 345, -300, 0, 360][trial % 5];
+      const d0 = dayOfDate('2025-06-01');
+      const dayList = Array.from({ length: 20 + Math.floor(random() * 40) }, (_, i) => d0 + i);
+      const outages: [number, number][] = dayList.flatMap((d) =>
+        Array.from({ length: 24 }, (_, h) => [d, h] as [number, number]).filter(() => random() < 0.08),
+      );
+      const blocks = Array.from({ length: 6 }, () => ({ coverage: random(), countingAreaKm2: 100 }));
+      const events = 300;
+      const eventTimes = Float64Array.from({ length: events }, () =>
+        at(d0 - 1 + Math.floor(random() * (dayList.length + 2)), offset, Math.floor(random() * 24), 7),
+      );
+      // Each event counts for zero to three blocks, as a neighbourhood radius gives.
+      const offsets = new Int32Array(events + 1);
+      const members: number[] = [];
+      for (let e = 0; e < events; e++) {
+        const k = Math.floor(random() * 4);
+        for (let j = 0; j < k; j++) members.push(Math.floor(random() * blocks.length));
+        offsets[e + 1] = members.length;
+      }
+      const selected = dayList.filter(() => random() < 0.6);
+      const input: OutlookInput = {
+        blocks,
+        eventTimes,
+        eventBlocks: { offsets, blockIndex: Int32Array.from(members) },
+        scanHours: hourlyScans(dayList, offset, outages),
+        days: Int32Array.from(selected),
+        utcOffsetMinutes: offset,
+        intervalMin: 60,
+        binHours: 3,
+        afternoon: { fromHour: 11 + (trial % 3), toHour: 17 + (trial % 2) },
+        minAvailability: 0.8,
+        minBlockCoverage: 0.5,
+        interval: 'jeffreys',
+        level: 0.9,
+      };
+      const full = computeOutlook(input).blocks.map((b) => b.afternoon.rate);
+      expect(afternoonRates(input), `trial ${trial}`).toEqual(full);
+      expect(
+        full.some((r) => r !== null && r > 0),
+        `trial ${trial} counts something`,
+      ).toBe(true);
+    }
   });
 });

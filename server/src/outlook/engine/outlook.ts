@@ -77,36 +77,36 @@ const hourMask = (from: number, to: number) => {
   return m >>> 0;
 };
 
-/**
- * Counts, for every block and local time-of-day bin, the days counted (n: days asked about whose
- * availability in the bin reaches the threshold, for blocks covered enough; otherwise null, never 0)
- * and the days among them with at least one event in the block (x); then rates, intervals, the
- * shrunk estimates, the afternoon and weekly figures and the peak bin (DESIGN §3.3, §3.5).
- * Everything is counted in one pass over typed arrays.
- */
-export function computeOutlook(input: OutlookInput): OutlookResult {
-  const { days, binHours, interval, level } = input;
-  const bins = 24 / binHours;
-  const blocks = input.blocks.length;
-  const dayCount = days.length;
-  const offsetMs = input.utcOffsetMinutes * 60_000;
-  const firstDay = dayCount ? days[0] : 0;
-  const span = dayCount ? days[dayCount - 1] - firstDay + 1 : 0;
+/** Where an instant falls among the days asked about: a day position (−1 outside them) and local hour. */
+function dayLocator(days: Int32Array, utcOffsetMinutes: number) {
+  const offsetMs = utcOffsetMinutes * 60_000;
+  const firstDay = days.length ? days[0] : 0;
+  const span = days.length ? days[days.length - 1] - firstDay + 1 : 0;
   const position = new Int32Array(span).fill(-1);
-  for (let p = 0; p < dayCount; p++) position[days[p] - firstDay] = p;
-  // Day position (−1 outside the days asked about) and local hour of an instant, without allocating:
-  // this runs for every scan and event of the period.
-  let hourOf = 0;
-  const positionOf = (t: number): number => {
-    const local = t + offsetMs;
-    const day = Math.floor(local / DAY_MS);
-    const i = day - firstDay;
-    if (i < 0 || i >= span) return -1;
-    hourOf = Math.floor((local - day * DAY_MS) / HOUR_MS);
-    return position[i];
+  for (let p = 0; p < days.length; p++) position[days[p] - firstDay] = p;
+  // The hour is handed back through a field rather than a new object: this runs for every event.
+  const where = {
+    hour: 0,
+    position(t: number): number {
+      const local = t + offsetMs;
+      const day = Math.floor(local / DAY_MS);
+      const i = day - firstDay;
+      if (i < 0 || i >= span) return -1;
+      where.hour = Math.floor((local - day * DAY_MS) / HOUR_MS);
+      return position[i];
+    },
   };
+  return where;
+}
 
-  // Availability: scans present per local day and hour, against those expected.
+/**
+ * Which (day, bin) pairs and which days' afternoons count: those whose scans present reach the
+ * availability threshold of those expected (DESIGN §3.3).
+ */
+function countedDays(input: OutlookInput) {
+  const { days, binHours } = input;
+  const bins = 24 / binHours;
+  const dayCount = days.length;
   const scansByHour = new Int32Array(dayCount * 24);
   const { scanHours } = input;
   for (let p = 0; p < dayCount; p++) {
@@ -136,6 +136,53 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
       afternoonDays++;
     }
   }
+  return { binCounted, daysPerBin, afternoonCounted, afternoonDays };
+}
+
+/**
+ * Only the afternoon rate x/n of each block (null where the block has no data or no afternoon
+ * counted): what an all-days climatology beside a regime's outlook needs, counted exactly as
+ * computeOutlook counts it but without the bins, weeks, priors and intervals.
+ */
+export function afternoonRates(input: Omit<OutlookInput, 'withIntervals' | 'withDaily'>): (number | null)[] {
+  const dayCount = input.days.length;
+  const { afternoonCounted, afternoonDays } = countedDays(input);
+  const { fromHour, toHour } = input.afternoon;
+  const at = dayLocator(input.days, input.utcOffsetMinutes);
+  const seen = new Uint8Array(input.blocks.length * dayCount);
+  const x = new Int32Array(input.blocks.length);
+  const { offsets, blockIndex } = input.eventBlocks;
+  for (let e = 0; e < input.eventTimes.length; e++) {
+    const p = at.position(input.eventTimes[e]);
+    if (p < 0 || afternoonCounted[p] === 0 || at.hour < fromHour || at.hour >= toHour) continue;
+    for (let j = offsets[e]; j < offsets[e + 1]; j++) {
+      const cell = blockIndex[j] * dayCount + p;
+      if (seen[cell] === 0) {
+        seen[cell] = 1;
+        x[blockIndex[j]]++;
+      }
+    }
+  }
+  return input.blocks.map((block, b) =>
+    block.coverage >= input.minBlockCoverage && afternoonDays > 0 ? x[b] / afternoonDays : null,
+  );
+}
+
+/**
+ * Counts, for every block and local time-of-day bin, the days counted (n: days asked about whose
+ * availability in the bin reaches the threshold, for blocks covered enough; otherwise null, never 0)
+ * and the days among them with at least one event in the block (x); then rates, intervals, the
+ * shrunk estimates, the afternoon and weekly figures and the peak bin (DESIGN §3.3, §3.5).
+ * Everything is counted in one pass over typed arrays.
+ */
+export function computeOutlook(input: OutlookInput): OutlookResult {
+  const { days, binHours, interval, level } = input;
+  const bins = 24 / binHours;
+  const blocks = input.blocks.length;
+  const dayCount = days.length;
+  const at = dayLocator(days, input.utcOffsetMinutes);
+  const { binCounted, daysPerBin, afternoonCounted, afternoonDays } = countedDays(input);
+  const { fromHour, toHour } = input.afternoon;
 
   // Events: which hours of which day saw one in each block, and how many on counted days.
   const seen = new Uint32Array(blocks * dayCount);
@@ -143,9 +190,9 @@ export function computeOutlook(input: OutlookInput): OutlookResult {
   const eventsAfternoon = new Float64Array(blocks);
   const { offsets, blockIndex } = input.eventBlocks;
   for (let e = 0; e < input.eventTimes.length; e++) {
-    const p = positionOf(input.eventTimes[e]);
+    const p = at.position(input.eventTimes[e]);
     if (p < 0) continue;
-    const h = hourOf;
+    const h = at.hour;
     const k = Math.floor(h / binHours);
     const inBin = binCounted[p * bins + k] === 1;
     const inAfternoon = h >= fromHour && h < toHour && afternoonCounted[p] === 1;
