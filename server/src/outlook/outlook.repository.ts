@@ -8,6 +8,13 @@ export interface TimeRange {
   to: number | null;
 }
 
+export interface SourceOnsets {
+  source: string;
+  /** Start times (UTC ms) and start blocks (−1 outside every block), aligned. */
+  time: Float64Array;
+  blockId: Int32Array;
+}
+
 export interface EventColumns {
   time: Float64Array;
   blockId: Int32Array;
@@ -76,15 +83,27 @@ export class OutlookRepository {
     return res.rows[0]?.v ?? null;
   }
 
-  /** Counted onsets per stored source in the range, most first. */
-  async onsetsBySource(siteId: number, r: TimeRange): Promise<{ source: string; onsets: number }[]> {
+  /**
+   * Counted onsets of every stored source in the range, most first: start times and start blocks,
+   * one row per source. What a block outlook without a neighbourhood counts, and the count of onsets
+   * per source that picks the default source, come from this one read.
+   */
+  async onsetsBySource(siteId: number, r: TimeRange): Promise<SourceOnsets[]> {
     const t = range(r, 'first_time', 2);
-    const res = await this.handle.pg.query<{ source: string; onsets: number }>(
-      `select source, count(*)::int as onsets from tracks where site_id = $1 and onset${t.sql}
-       group by source order by onsets desc, source`,
+    const res = await this.handle.pg.query<{ source: string; t: string; k: string }>(
+      `select source,
+              encode(string_agg(float8send(date_part('epoch', first_time) * 1000), ''::bytea), 'base64') as t,
+              encode(string_agg(int4send(coalesce(start_block_id, -1)), ''::bytea), 'base64') as k
+       from tracks where site_id = $1 and onset${t.sql} group by source`,
       [siteId, ...t.params],
     );
-    return res.rows;
+    return res.rows
+      .map((row) => ({
+        source: row.source,
+        time: wholeMs(unpackFloat64(row.t)),
+        blockId: unpackInt32(row.k),
+      }))
+      .sort((x, y) => y.time.length - x.time.length || (x.source < y.source ? -1 : 1));
   }
 
   /** Counted onsets of one source: start time, start block and start lon/lat. */

@@ -24,7 +24,12 @@ import {
   type OutlookResult,
 } from './engine/outlook.js';
 import { type ScanHours, scannedDays } from './engine/scan-hours.js';
-import { type EventColumns, OutlookRepository, type TimeRange } from './outlook.repository.js';
+import {
+  type EventColumns,
+  OutlookRepository,
+  type SourceOnsets,
+  type TimeRange,
+} from './outlook.repository.js';
 import { outlookCsv } from './outlook-csv.js';
 
 /** A computed outlook, kept serialised so a cached answer costs no work but the version check. */
@@ -67,7 +72,7 @@ export class OutlookService {
   private readonly loads = new Map<string, { version: string; data: Promise<Loaded> }>();
   /** Fingerprints per site, valid while nothing has been written since they were read. */
   private fingerprints = { mark: '', writes: -1, checkedAt: 0, bySite: new Map<number, string | null>() };
-  private readonly sourceCounts = new Map<string, { version: string; counts: Promise<SourceCount[]> }>();
+  private readonly sourceOnsets = new Map<string, { version: string; onsets: Promise<SourceOnsets[]> }>();
   private readonly regimeDays = new Map<string, { version: string; days: Promise<RegimeList> }>();
 
   constructor(
@@ -143,7 +148,7 @@ export class OutlookService {
     };
     const sources = await this.onsetsBySource(q.siteId, range, version);
     const source = (q.source ?? sources[0]?.source ?? 'cell-table') as OutlookSource;
-    const data = await this.load(q, source, range, version);
+    const data = await this.load(q, source, range, version, sources);
     const days: number[] = [];
     for (let d = dayOfDate(q.from); d <= dayOfDate(q.to); d++) days.push(d);
     const result = computeOutlook({
@@ -169,7 +174,7 @@ export class OutlookService {
     };
     const sources = await this.onsetsBySource(q.siteId, range, version);
     const source = (q.source ?? sources[0]?.source ?? 'cell-table') as OutlookSource;
-    const data = await this.load(q, source, range, version);
+    const data = await this.load(q, source, range, version, sources);
 
     // The period: as asked, or from the first to the last day with a scan the source could have seen.
     const scanned = scannedDays(data.scanHours);
@@ -240,7 +245,7 @@ export class OutlookService {
       siteCode: site.code,
       utcOffsetMinutes: offset,
       source,
-      sources,
+      sources: sources.map((o) => ({ source: o.source, onsets: o.time.length })),
       measure: q.measure,
       regime: q.regime,
       from,
@@ -265,17 +270,17 @@ export class OutlookService {
     };
   }
 
-  /** Onsets per stored source in the period, counted once per data version. */
-  private onsetsBySource(siteId: number, range: TimeRange, version: string): Promise<SourceCount[]> {
+  /** Onset times and blocks of every source in the period, read once per data version. */
+  private onsetsBySource(siteId: number, range: TimeRange, version: string): Promise<SourceOnsets[]> {
     const key = `${siteId}|${range.from}|${range.to}`;
-    const hit = this.sourceCounts.get(key);
-    if (hit && hit.version === version) return hit.counts;
-    const counts = this.repo.onsetsBySource(siteId, range);
-    this.sourceCounts.set(key, { version, counts });
-    counts.catch(() => this.sourceCounts.delete(key));
-    while (this.sourceCounts.size > MAX_LOADS)
-      this.sourceCounts.delete(this.sourceCounts.keys().next().value as string);
-    return counts;
+    const hit = this.sourceOnsets.get(key);
+    if (hit && hit.version === version) return hit.onsets;
+    const onsets = this.repo.onsetsBySource(siteId, range);
+    this.sourceOnsets.set(key, { version, onsets });
+    onsets.catch(() => this.sourceOnsets.delete(key));
+    while (this.sourceOnsets.size > MAX_LOADS)
+      this.sourceOnsets.delete(this.sourceOnsets.keys().next().value as string);
+    return onsets;
   }
 
   /** The regime of each day of the period, classified once per data version (all regimes at once). */
@@ -295,18 +300,29 @@ export class OutlookService {
   }
 
   /** Events, scans and block geometry for a site, source, measure, radius and period, loaded once. */
-  private load(q: OutlookQuery, source: OutlookSource, range: TimeRange, version: string): Promise<Loaded> {
+  private load(
+    q: OutlookQuery,
+    source: OutlookSource,
+    range: TimeRange,
+    version: string,
+    sources: SourceOnsets[],
+  ): Promise<Loaded> {
     const key = JSON.stringify([q.siteId, source, q.measure, q.radiusKm, range.from, range.to]);
     const hit = this.loads.get(key);
     if (hit && hit.version === version) return hit.data;
-    const data = this.loadFresh(q, source, range);
+    const data = this.loadFresh(q, source, range, sources);
     this.loads.set(key, { version, data });
     data.catch(() => this.loads.delete(key));
     while (this.loads.size > MAX_LOADS) this.loads.delete(this.loads.keys().next().value as string);
     return data;
   }
 
-  private async loadFresh(q: OutlookQuery, source: OutlookSource, range: TimeRange): Promise<Loaded> {
+  private async loadFresh(
+    q: OutlookQuery,
+    source: OutlookSource,
+    range: TimeRange,
+    sources: SourceOnsets[],
+  ): Promise<Loaded> {
     const site = await this.sites.get(q.siteId);
     const plane = sitePlane(site);
     // Availability is judged against the scans a source could have seen (as the onset rules do): a
@@ -315,8 +331,12 @@ export class OutlookService {
     const days = { from: q.from ? dayOfDate(q.from) : null, to: q.to ? dayOfDate(q.to) : null };
     const [scanHours, events, stored] = await Promise.all([
       this.repo.scanHours(q.siteId, source, days),
+      // Onsets counted in their own block need only their times and blocks, already read per source;
+      // a neighbourhood also needs where each started.
       q.measure === 'onsets'
-        ? this.repo.onsets(q.siteId, source, range)
+        ? q.radiusKm === 0
+          ? (sources.find((o) => o.source === source) ?? NO_ONSETS)
+          : this.repo.onsets(q.siteId, source, range)
         : this.repo.stormCells(q.siteId, source, range),
       this.regions.listBlocksWithGeometry({}),
     ]);
@@ -334,14 +354,13 @@ export class OutlookService {
     if (q.radiusKm === 0) {
       eventBlocks = ownBlock(Int32Array.from(events.blockId, (id) => indexOf.get(id) ?? -1));
     } else {
-      const [x, y] = q.measure === 'onsets' ? project(events, plane) : [events.a, events.b];
+      const columns = events as EventColumns;
+      const [x, y] = q.measure === 'onsets' ? project(columns, plane) : [columns.a, columns.b];
       eventBlocks = blocksWithin(x, y, inPlane, q.radiusKm);
     }
     return { scanHours, events, eventBlocks, blocks };
   }
 }
-
-type SourceCount = { source: string; onsets: number };
 
 export interface AfternoonDailyAnswer {
   source: OutlookSource;
@@ -356,9 +375,12 @@ interface RegimeList {
   counts: { regime: string; days: number }[];
 }
 
+const NO_ONSETS = { time: new Float64Array(0), blockId: new Int32Array(0) };
+
 interface Loaded {
   scanHours: ScanHours;
-  events: EventColumns;
+  /** Where each event was is read only when a neighbourhood needs it. */
+  events: Pick<EventColumns, 'time' | 'blockId'> | EventColumns;
   eventBlocks: ReturnType<typeof ownBlock>;
   blocks: (Awaited<ReturnType<RegionsRepository['listBlocksWithGeometry']>>[number] & {
     coverage: number;
