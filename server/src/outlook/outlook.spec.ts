@@ -96,6 +96,23 @@ describe('GET /api/outlook on the demo season', () => {
     }
   });
 
+  it('lists the onsets of every stored source, most first, as a plain count in the database gives them', async () => {
+    const counted = await t.db.pg.query<{ source: string; onsets: number }>(
+      `select source, count(*)::int as onsets from tracks where site_id = $1 and onset
+       group by source order by onsets desc, source`,
+      [siteId],
+    );
+    expect(counted.rows.length).toBeGreaterThan(0);
+    expect(all.sources).toEqual(counted.rows);
+    // A source with nothing stored counts nothing (not the cell table's onsets).
+    const volume: OutlookResponse = (
+      await t.http.get('/api/outlook').query({ siteId, source: 'volume' }).set(auth).expect(200)
+    ).body;
+    expect(volume.source).toBe('volume');
+    expect(volume.blocks.every((b) => b.afternoon.x === 0)).toBe(true);
+    expect(all.blocks.some((b) => (b.afternoon.x ?? 0) > 0)).toBe(true);
+  });
+
   it('counts more with presence than with onsets, and more with a neighbourhood radius', async () => {
     const presence: OutlookResponse = (
       await t.http.get('/api/outlook').query({ siteId, measure: 'presence' }).set(auth).expect(200)
