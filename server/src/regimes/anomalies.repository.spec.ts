@@ -25,7 +25,10 @@ describe('AnomaliesRepository.fields', () => {
     // 150 days × 3 variables = 450 analysis fields at 850 hPa (more than three read batches), two grid
     // sizes, NaN and signed zeros among the values, plus forecasts and another level that must not mix in.
     let seed = 7;
-    const next = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31) * 20 - 10;
+    const next = () => {
+      seed = (seed * 1103515245 + 12345) % 2 ** 31;
+      return (seed / 2 ** 31) * 20 - 10;
+    };
     for (let d = 0; d < 150; d++) {
       const date = new Date(Date.UTC(2024, 5, 1) + d * 86_400_000).toISOString().slice(0, 10);
       for (const variable of ['q', 'u', 'v'] as const)

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { AnomalySource, AnomalyVariable, RegimeSettings } from '@stormhour/shared';
-import { and, asc, desc, eq, getTableColumns, gte, lte, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, getTableColumns, sql } from 'drizzle-orm';
 import { DATABASE, type DatabaseHandle, type Executor } from '../database/database.js';
 import { anomalyClimatologies, anomalyFields, regimeSettings } from '../database/schema.js';
 import type { ClimatologyField } from '../intake/anomaly-climatology.js';

@@ -182,7 +182,10 @@ export class RegimesService {
       byDate.set(f.date, day);
     }
     const masks = new Map<string, Uint8Array>();
+    // Nearly every field shares the previous one's grid: compare numbers before building a key.
+    let last: { g: GridGeometry; mask: Uint8Array } | null = null;
     const maskFor = (g: GridGeometry) => {
+      if (last && sameGrid(last.g, g)) return last.mask;
       const key = `${g.nx},${g.ny},${g.lon0},${g.lat0},${g.dLon},${g.dLat}`;
       let mask = masks.get(key);
       if (!mask) {
@@ -191,6 +194,7 @@ export class RegimesService {
           for (let i = 0; i < g.nx; i++) mask[j * g.nx + i] = inDomain(cellLat(g, j), cellLon(g, i)) ? 1 : 0;
         masks.set(key, mask);
       }
+      last = { g, mask };
       return mask;
     };
 
@@ -240,3 +244,11 @@ export class RegimesService {
     return this.anomalies.count();
   }
 }
+
+const sameGrid = (a: GridGeometry, b: GridGeometry) =>
+  a.nx === b.nx &&
+  a.ny === b.ny &&
+  a.lon0 === b.lon0 &&
+  a.lat0 === b.lat0 &&
+  a.dLon === b.dLon &&
+  a.dLat === b.dLat;
