@@ -23,7 +23,8 @@ export function setUpApp(app: INestApplication): void {
       },
     }),
   );
-  app.use(cookieParser());
+  // Only the sign-in routes read a cookie (the refresh token); other requests skip the parsing.
+  app.use('/api/auth', cookieParser());
   app.setGlobalPrefix('api');
   const document = SwaggerModule.createDocument(
     app,

@@ -24,20 +24,27 @@ export class OutlookController {
   @Roles('scientist', 'writer')
   async get(@Query(zodQuery(OutlookQuery)) q: OutlookParams, @Req() req: Request, @Res() res: Response) {
     const answer = await this.outlook.outlook(q);
+    // The cached bytes are written as they are (Express's send would look at them again).
+    // Set before asking req.fresh, which compares the request's If-None-Match with it.
     res.setHeader('ETag', answer.etag);
-    res.setHeader('Cache-Control', 'private, no-cache');
-    res.setHeader('Vary', 'Accept-Encoding');
-    res.type('application/json');
+    const headers = {
+      'Cache-Control': 'private, no-cache',
+      Vary: 'Accept-Encoding',
+      'Content-Type': 'application/json; charset=utf-8',
+    };
     if (req.fresh) {
-      res.status(304).end();
+      res.writeHead(304, headers).end();
       return;
     }
-    if (req.acceptsEncodings('gzip') === 'gzip') {
-      res.setHeader('Content-Encoding', 'gzip');
-      res.send(answer.gzip);
-    } else {
-      res.send(answer.json);
-    }
+    const gzip = req.acceptsEncodings('gzip') === 'gzip';
+    const body = gzip ? answer.gzip : answer.json;
+    res
+      .writeHead(200, {
+        ...headers,
+        ...(gzip ? { 'Content-Encoding': 'gzip' } : {}),
+        'Content-Length': body.length,
+      })
+      .end(body);
   }
 
   /** The same table as CSV, one row per block and bin. */

@@ -127,6 +127,37 @@ describe('GET /api/outlook on the demo season', () => {
     expect(afternoon(wide.blocks)).toBeGreaterThan(afternoon(all.blocks));
   }, 60_000);
 
+  it('sends an unchanged outlook as 304 to a client holding it, and compressed to one that accepts gzip', async () => {
+    const plain = await t.http
+      .get('/api/outlook')
+      .query({ siteId })
+      .set(auth)
+      .set('Accept-Encoding', 'identity');
+    expect(plain.status).toBe(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.body).toEqual(all);
+    const etag = plain.headers.etag;
+    expect(etag).toMatch(/^"/);
+    // RFC 9110 §13.1.2: a matching If-None-Match on a GET gets 304 Not Modified, no body.
+    const again = await t.http.get('/api/outlook').query({ siteId }).set(auth).set('If-None-Match', etag);
+    expect(again.status).toBe(304);
+    expect(again.text ?? '').toBe('');
+    const stale = await t.http
+      .get('/api/outlook')
+      .query({ siteId })
+      .set(auth)
+      .set('If-None-Match', '"other"');
+    expect(stale.status).toBe(200);
+    const zipped = await t.http
+      .get('/api/outlook')
+      .query({ siteId })
+      .set(auth)
+      .set('Accept-Encoding', 'gzip');
+    expect(zipped.headers['content-encoding']).toBe('gzip');
+    expect(Number(zipped.headers['content-length'])).toBeLessThan(Number(plain.headers['content-length']));
+    expect(zipped.body).toEqual(all);
+  });
+
   it('answers the same from its cache as when computed, and computes afresh after a settings change', async () => {
     const first = await t.http.get('/api/outlook').query({ siteId, binHours: 1 }).set(auth).expect(200);
     const cached = await t.http.get('/api/outlook').query({ siteId, binHours: 1 }).set(auth).expect(200);
