@@ -8,6 +8,15 @@ export interface TimeRange {
   to: number | null;
 }
 
+export interface DataVersion {
+  /** Changes with anything an outlook depends on. */
+  all: string;
+  /** Changes with the site or the blocks and districts. */
+  geometry: string;
+  /** Changes with the site, its regime settings or the anomaly fields. */
+  regimes: string;
+}
+
 export interface SourceOnsets {
   source: string;
   /** Start times (UTC ms) and start blocks (−1 outside every block), aligned. */
@@ -65,22 +74,35 @@ export class OutlookRepository {
    * A cheap fingerprint of everything an outlook depends on: the newest ids of tracks, cells, anomaly
    * fields and settings versions; the site's scans per hour as counted (so removed scans are seen too);
    * the last finished job (onsets are re-decided and anomaly fields replaced in place by jobs); the
-   * blocks and districts, and the site's own row.
-   * Null when the site does not exist.
+   * blocks and districts, and the site's own row. Beside it, two narrower ones for work that new radar
+   * data leaves valid: the block geometry as placed on the site, and the days' regimes (the site's
+   * row, its regime settings and the anomaly fields: a replaced field takes its new upload's id, so
+   * the sum of upload ids moves). Null when the site does not exist.
    */
-  async dataVersion(siteId: number): Promise<string | null> {
-    const res = await this.handle.pg.query<{ v: string | null }>(
-      `select (select md5(r::text) from radar_sites r where r.id = $1) || '|' ||
+  async dataVersion(siteId: number): Promise<DataVersion | null> {
+    const res = await this.handle.pg.query<{
+      site: string | null;
+      data: string;
+      geometry: string;
+      regimes: string;
+    }>(
+      `select (select md5(r::text) from radar_sites r where r.id = $1) as site,
         (select coalesce(max(id), 0) from tracks) || '|' || (select coalesce(max(id), 0) from cells) || '|' ||
         (select coalesce(md5(string_agg(source || local_day || scans::text, ',' order by source, local_day)), '')
            from scan_hours where site_id = $1) || '|' || (select coalesce(max(id), 0) from anomaly_fields) || '|' ||
         (select coalesce(max(id), 0) from site_settings) || '|' || (select coalesce(max(id), 0) from regime_settings) || '|' ||
-        (select coalesce(max(finished_at)::text, '') || count(*) from jobs) || '|' ||
+        (select coalesce(max(finished_at)::text, '') || count(*) from jobs) as data,
         (select coalesce(max(updated_at)::text, '') || count(*) || coalesce(max(id), 0) from blocks) || '|' ||
-        (select coalesce(md5(string_agg(id || code || name, ',' order by id)), '') from districts) as v`,
+        (select coalesce(md5(string_agg(id || code || name, ',' order by id)), '') from districts) as geometry,
+        (select coalesce(max(id), 0) || ':' || count(*) || ':' || coalesce(sum(upload_id), 0) from anomaly_fields) || '|' ||
+        (select coalesce(max(id), 0) from regime_settings where site_id = $1) as regimes`,
       [siteId],
     );
-    return res.rows[0]?.v ?? null;
+    const row = res.rows[0];
+    if (!row?.site) return null;
+    const geometry = `${row.site}|${row.geometry}`;
+    const regimes = `${row.site}|${row.regimes}`;
+    return { all: `${row.site}|${row.data}|${row.geometry}`, geometry, regimes };
   }
 
   /**

@@ -25,6 +25,7 @@ import {
 } from './engine/outlook.js';
 import { type ScanHours, scannedDays } from './engine/scan-hours.js';
 import {
+  type DataVersion,
   type EventColumns,
   OutlookRepository,
   type SourceOnsets,
@@ -71,9 +72,15 @@ export class OutlookService {
   private readonly answers = new Map<string, Entry>();
   private readonly loads = new Map<string, { version: string; data: Promise<Loaded> }>();
   /** Fingerprints per site, valid while nothing has been written since they were read. */
-  private fingerprints = { mark: '', writes: -1, checkedAt: 0, bySite: new Map<number, string | null>() };
+  private fingerprints = {
+    mark: '',
+    writes: -1,
+    checkedAt: 0,
+    bySite: new Map<number, DataVersion | null>(),
+  };
   private readonly sourceOnsets = new Map<string, { version: string; onsets: Promise<SourceOnsets[]> }>();
   private readonly regimeDays = new Map<string, { version: string; days: Promise<RegimeList> }>();
+  private readonly geometries = new Map<number, { version: string; geometry: Promise<BlockGeometry> }>();
 
   constructor(
     private readonly repo: OutlookRepository,
@@ -87,14 +94,14 @@ export class OutlookService {
     if (version === null) throw new NotFoundException(`There is no radar site with id ${q.siteId}.`);
     const key = JSON.stringify(q, Object.keys(q).sort());
     const hit = this.answers.get(key);
-    if (hit && hit.version === version) {
+    if (hit && hit.version === version.all) {
       // Most recently used last, so the oldest is evicted first.
       this.answers.delete(key);
       this.answers.set(key, hit);
       return hit.answer;
     }
     const answer = this.compute(q, version).then(serialise);
-    this.answers.set(key, { version, answer });
+    this.answers.set(key, { version: version.all, answer });
     answer.catch(() => this.answers.delete(key));
     while (this.answers.size > MAX_ANSWERS) this.answers.delete(this.answers.keys().next().value as string);
     return answer;
@@ -106,7 +113,7 @@ export class OutlookService {
    */
   async dataFingerprint(siteId: number): Promise<string | null> {
     const version = await this.fingerprint(siteId);
-    return version === null ? null : createHash('sha1').update(version).digest('hex');
+    return version === null ? null : createHash('sha1').update(version.all).digest('hex');
   }
 
   /**
@@ -114,7 +121,7 @@ export class OutlookService {
    * process's write counter moved, or (checked at most every DB_MARK_CHECK_MS, for writes the counter
    * cannot see) the database's write mark moved. A cached answer thus usually costs no query at all.
    */
-  private async fingerprint(siteId: number): Promise<string | null> {
+  private async fingerprint(siteId: number): Promise<DataVersion | null> {
     // Read before awaiting anything: a write landing meanwhile moves the counter past this value,
     // so whatever is read now is read again at the next request.
     const writes = this.repo.writeCount();
@@ -139,14 +146,14 @@ export class OutlookService {
    * as the outlook counts, from the same stored source.
    */
   async afternoonDaily(q: OutlookQuery & { from: string; to: string }): Promise<AfternoonDailyAnswer> {
-    const version = (await this.fingerprint(q.siteId)) ?? 'none';
+    const version = (await this.fingerprint(q.siteId)) ?? { all: 'none', geometry: 'none', regimes: 'none' };
     const site = await this.sites.get(q.siteId);
     const offset = site.utcOffsetMinutes;
     const range: TimeRange = {
       from: localMidnightUtc(dayOfDate(q.from), offset),
       to: localMidnightUtc(dayOfDate(q.to) + 1, offset),
     };
-    const sources = await this.onsetsBySource(q.siteId, range, version);
+    const sources = await this.onsetsBySource(q.siteId, range, version.all);
     const source = (q.source ?? sources[0]?.source ?? 'cell-table') as OutlookSource;
     const data = await this.load(q, source, range, version, sources);
     const days: number[] = [];
@@ -165,14 +172,14 @@ export class OutlookService {
     };
   }
 
-  private async compute(q: OutlookQuery, version: string): Promise<OutlookResponse> {
+  private async compute(q: OutlookQuery, version: DataVersion): Promise<OutlookResponse> {
     const site = await this.sites.get(q.siteId);
     const offset = site.utcOffsetMinutes;
     const range: TimeRange = {
       from: q.from ? localMidnightUtc(dayOfDate(q.from), offset) : null,
       to: q.to ? localMidnightUtc(dayOfDate(q.to) + 1, offset) : null,
     };
-    const sources = await this.onsetsBySource(q.siteId, range, version);
+    const sources = await this.onsetsBySource(q.siteId, range, version.all);
     const source = (q.source ?? sources[0]?.source ?? 'cell-table') as OutlookSource;
     const data = await this.load(q, source, range, version, sources);
 
@@ -185,7 +192,8 @@ export class OutlookService {
     const from = firstDay === null ? null : dateOfDay(firstDay);
     const to = lastDay === null ? null : dateOfDay(lastDay);
 
-    const regimes = from && to ? await this.regimesOf(q.siteId, from, to, version) : { days: [], counts: [] };
+    const regimes =
+      from && to ? await this.regimesOf(q.siteId, from, to, version.regimes) : { days: [], counts: [] };
     let selected = allDays;
     if (q.regime !== ALL_DAYS) {
       const dates = new Set(regimes.days.filter((d) => d.regime === q.regime).map((d) => d.date));
@@ -283,7 +291,10 @@ export class OutlookService {
     return onsets;
   }
 
-  /** The regime of each day of the period, classified once per data version (all regimes at once). */
+  /**
+   * The regime of each day of the period, all regimes at once, classified again only when the site,
+   * its regime settings or the anomaly fields change (not with every radar intake).
+   */
   private regimesOf(siteId: number, from: string, to: string, version: string): Promise<RegimeList> {
     const key = `${siteId}|${from}|${to}`;
     const hit = this.regimeDays.get(key);
@@ -299,19 +310,46 @@ export class OutlookService {
     return days;
   }
 
+  /**
+   * The blocks as placed on the site: outlines in the site plane, perimeters and the share of each in
+   * coverage. Worked out again only when the site or the blocks change, not with every radar intake.
+   */
+  private blockGeometry(siteId: number, version: string): Promise<BlockGeometry> {
+    const hit = this.geometries.get(siteId);
+    if (hit && hit.version === version) return hit.geometry;
+    const geometry = (async () => {
+      const [site, stored] = await Promise.all([
+        this.sites.get(siteId),
+        this.regions.listBlocksWithGeometry({}),
+      ]);
+      const plane = sitePlane(site);
+      const inPlane = stored.map((b) => toPlane(b.geometry, plane));
+      return {
+        plane,
+        inPlane,
+        indexOf: new Map(stored.map((b, i) => [b.id, i])),
+        perimeterKm: inPlane.map((rings) => areaAndPerimeter(rings).perimeterKm),
+        blocks: stored.map((b) => ({ ...b, coverage: coverageFraction(b.geometry, site, plane) })),
+      };
+    })();
+    this.geometries.set(siteId, { version, geometry });
+    geometry.catch(() => this.geometries.delete(siteId));
+    return geometry;
+  }
+
   /** Events, scans and block geometry for a site, source, measure, radius and period, loaded once. */
   private load(
     q: OutlookQuery,
     source: OutlookSource,
     range: TimeRange,
-    version: string,
+    version: DataVersion,
     sources: SourceOnsets[],
   ): Promise<Loaded> {
     const key = JSON.stringify([q.siteId, source, q.measure, q.radiusKm, range.from, range.to]);
     const hit = this.loads.get(key);
-    if (hit && hit.version === version) return hit.data;
-    const data = this.loadFresh(q, source, range, sources);
-    this.loads.set(key, { version, data });
+    if (hit && hit.version === version.all) return hit.data;
+    const data = this.loadFresh(q, source, range, sources, version.geometry);
+    this.loads.set(key, { version: version.all, data });
     data.catch(() => this.loads.delete(key));
     while (this.loads.size > MAX_LOADS) this.loads.delete(this.loads.keys().next().value as string);
     return data;
@@ -322,14 +360,13 @@ export class OutlookService {
     source: OutlookSource,
     range: TimeRange,
     sources: SourceOnsets[],
+    geometryVersion: string,
   ): Promise<Loaded> {
-    const site = await this.sites.get(q.siteId);
-    const plane = sitePlane(site);
     // Availability is judged against the scans a source could have seen (as the onset rules do): a
     // cell table with the scan inventory, a volume or column-maximum run with its own scans only. The
     // database keeps those counts per local hour as scans are stored.
     const days = { from: q.from ? dayOfDate(q.from) : null, to: q.to ? dayOfDate(q.to) : null };
-    const [scanHours, events, stored] = await Promise.all([
+    const [scanHours, events, geometry] = await Promise.all([
       this.repo.scanHours(q.siteId, source, days),
       // Onsets counted in their own block need only their times and blocks, already read per source;
       // a neighbourhood also needs where each started.
@@ -338,18 +375,13 @@ export class OutlookService {
           ? (sources.find((o) => o.source === source) ?? NO_ONSETS)
           : this.repo.onsets(q.siteId, source, range)
         : this.repo.stormCells(q.siteId, source, range),
-      this.regions.listBlocksWithGeometry({}),
+      this.blockGeometry(q.siteId, geometryVersion),
     ]);
-    const indexOf = new Map(stored.map((b, i) => [b.id, i]));
-    const inPlane = stored.map((b) => toPlane(b.geometry, plane));
-    const blocks = stored.map((b, i) => {
-      const { perimeterKm } = areaAndPerimeter(inPlane[i]);
-      return {
-        ...b,
-        coverage: coverageFraction(b.geometry, site, plane),
-        countingAreaKm2: q.radiusKm > 0 ? bufferedAreaKm2(b.areaKm2, perimeterKm, q.radiusKm) : b.areaKm2,
-      };
-    });
+    const { plane, inPlane, indexOf, perimeterKm } = geometry;
+    const blocks = geometry.blocks.map((b, i) => ({
+      ...b,
+      countingAreaKm2: q.radiusKm > 0 ? bufferedAreaKm2(b.areaKm2, perimeterKm[i], q.radiusKm) : b.areaKm2,
+    }));
     let eventBlocks: Loaded['eventBlocks'];
     if (q.radiusKm === 0) {
       eventBlocks = ownBlock(Int32Array.from(events.blockId, (id) => indexOf.get(id) ?? -1));
@@ -376,6 +408,14 @@ interface RegimeList {
 }
 
 const NO_ONSETS = { time: new Float64Array(0), blockId: new Int32Array(0) };
+
+interface BlockGeometry {
+  plane: ReturnType<typeof sitePlane>;
+  inPlane: ReturnType<typeof toPlane>[];
+  indexOf: Map<number, number>;
+  perimeterKm: number[];
+  blocks: (Awaited<ReturnType<RegionsRepository['listBlocksWithGeometry']>>[number] & { coverage: number })[];
+}
 
 interface Loaded {
   scanHours: ScanHours;
