@@ -9,6 +9,7 @@ import { api } from '../../config/paths';
 import { request, requestText } from '../../lib/api';
 import { ApiError } from '../../lib/apiError';
 import { withQuery } from '../../lib/queryString';
+import { regimeKeys } from '../regimes/api';
 
 /** What the Outlook screen asks for; empty dates mean the whole record. */
 export interface OutlookParams {
@@ -28,7 +29,6 @@ export interface OutlookParams {
 export const outlookKeys = {
   all: ['outlook'] as const,
   outlook: (params: OutlookParams) => ['outlook', params] as const,
-  expected: (siteId: number, from: string, to: string) => ['outlook', 'expected', siteId, from, to] as const,
 };
 
 const query = (p: OutlookParams) => ({
@@ -78,7 +78,8 @@ export async function fetchExpectedRegime(siteId: number, from: string, to: stri
 }
 export function getExpectedRegimeQueryOptions(siteId: number, from: string, to: string) {
   return queryOptions({
-    queryKey: outlookKeys.expected(siteId, from, to),
+    // Under the regimes' key, so new regime settings (which invalidate every regimes query) reach it.
+    queryKey: regimeKeys.expected({ siteId, from, to }),
     queryFn: () => fetchExpectedRegime(siteId, from, to),
   });
 }

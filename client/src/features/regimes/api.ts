@@ -1,10 +1,4 @@
-import type {
-  AnomalySource,
-  ExpectedRegimeResponse,
-  RegimeComposite,
-  RegimeSettings,
-  RegimesResponse,
-} from '@stormhour/shared';
+import type { AnomalySource, RegimeComposite, RegimeSettings, RegimesResponse } from '@stormhour/shared';
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../config/paths';
 import { request } from '../../lib/api';
@@ -99,23 +93,6 @@ export function useUpdateRegimeSettings(siteId: number) {
     mutationFn: (body: RegimeSettings) => updateRegimeSettings(siteId, body),
     // New settings classify every day again: the calendar, counts and composites all change.
     onSuccess: () => queryClient.invalidateQueries({ queryKey: regimeKeys.all }),
-  });
-}
-
-/** The regime expected for a coming period, classified from forecast grids with the record's bounds. */
-export function fetchExpectedRegime(params: ExpectedRegimeParams): Promise<ExpectedRegimeResponse> {
-  return request<ExpectedRegimeResponse>(
-    withQuery(api.regimeExpected, { siteId: params.siteId, from: params.from, to: params.to }),
-  );
-}
-export function getExpectedRegimeQueryOptions(params: ExpectedRegimeParams) {
-  return queryOptions({ queryKey: regimeKeys.expected(params), queryFn: () => fetchExpectedRegime(params) });
-}
-/** For the Outlook: null params (no site or week chosen yet) fetch nothing. */
-export function useExpectedRegime(params: ExpectedRegimeParams | null) {
-  return useQuery({
-    ...getExpectedRegimeQueryOptions(params ?? { siteId: 0, from: '', to: '' }),
-    enabled: params !== null,
   });
 }
 
