@@ -59,6 +59,29 @@ export function ValueGrid({
   ));
 }
 
+/** Tick marks and their labels under the plot area, one per value of the horizontal scale. */
+export function BottomTicks<T extends number | Date>({
+  ticks,
+  x,
+  h,
+  format,
+}: {
+  ticks: T[];
+  x: (value: T) => number;
+  /** The plot area's height: the ticks hang below it. */
+  h: number;
+  format: (value: T) => string;
+}) {
+  return ticks.map((t) => (
+    <g key={Number(t)} className="plot__tick" transform={`translate(${x(t)} ${h})`}>
+      <line y2={5} />
+      <text y={17} textAnchor="middle">
+        {format(t)}
+      </text>
+    </g>
+  ));
+}
+
 /** The two axis lines along the bottom and left of the plot area. */
 export function PlotAxes({ w, h }: { w: number; h: number }) {
   return (

@@ -2,7 +2,7 @@ import { extent, max, min } from 'd3-array';
 import { scaleLinear, scaleUtc } from 'd3-scale';
 import { line } from 'd3-shape';
 import { useMemo } from 'react';
-import { PlotAxes, PlotFigure, ValueGrid } from './PlotFigure';
+import { BottomTicks, PlotAxes, PlotFigure, ValueGrid } from './PlotFigure';
 import { innerSize } from './plotFrame';
 
 export interface TimePoint {
@@ -58,14 +58,7 @@ export function TimeSeriesPlot({
   return (
     <PlotFigure label={label} summary={summary} xLabel={xLabel} yLabel={yLabel} width={width} height={height}>
       <ValueGrid ticks={y.ticks(4)} y={y} width={w} />
-      {x.ticks(5).map((t) => (
-        <g key={t.getTime()} className="plot__tick" transform={`translate(${x(t)} ${h})`}>
-          <line y2={5} />
-          <text y={17} textAnchor="middle">
-            {formatTime(t)}
-          </text>
-        </g>
-      ))}
+      <BottomTicks ticks={x.ticks(5)} x={x} h={h} format={formatTime} />
       <PlotAxes w={w} h={h} />
       <path className="plot__line" d={d} />
       {dated.map((p) =>

@@ -2,7 +2,7 @@ import type { RegimeDay, RegimeSettings } from '@stormhour/shared';
 import { extent } from 'd3-array';
 import { scaleLinear } from 'd3-scale';
 import { useMemo } from 'react';
-import { PlotAxes, PlotFigure } from '../../../components/plots/PlotFigure';
+import { BottomTicks, PlotAxes, PlotFigure } from '../../../components/plots/PlotFigure';
 import { innerSize } from '../../../components/plots/plotFrame';
 import {
   colourOf,
@@ -102,14 +102,7 @@ export function FlowScatter({ days, settings, bounds, styles, width = 720, heigh
           </text>
         </g>
       ))}
-      {x.ticks(6).map((t) => (
-        <g key={t} className="plot__tick" transform={`translate(${x(t)} ${h})`}>
-          <line y2={5} />
-          <text y={17} textAnchor="middle">
-            {t === 0 ? '0' : formatSigned(t)}
-          </text>
-        </g>
-      ))}
+      <BottomTicks ticks={x.ticks(6)} x={x} h={h} format={(t) => (t === 0 ? '0' : formatSigned(t))} />
       {bounds ? (
         <g className="scatter__bounds">
           {bounds.map((b) => (

@@ -2,7 +2,7 @@ import type { ScorecardView } from '@stormhour/shared';
 import { scaleLinear } from 'd3-scale';
 import { line } from 'd3-shape';
 import { BarPlot } from '../../../components/plots/BarPlot';
-import { PlotAxes, PlotFigure, ValueGrid } from '../../../components/plots/PlotFigure';
+import { BottomTicks, PlotAxes, PlotFigure, ValueGrid } from '../../../components/plots/PlotFigure';
 import { innerSize } from '../../../components/plots/plotFrame';
 import { binLabel, percent } from '../scorecardFormat';
 
@@ -45,14 +45,7 @@ export function ReliabilityDiagram({ view }: { view: ScorecardView }) {
       height={height}
     >
       <ValueGrid ticks={TICKS} y={y} width={w} format={(v) => percent(v)} />
-      {TICKS.map((t) => (
-        <g key={t} className="plot__tick" transform={`translate(${x(t)} ${h})`}>
-          <line y2={5} />
-          <text y={17} textAnchor="middle">
-            {percent(t)}
-          </text>
-        </g>
-      ))}
+      <BottomTicks ticks={TICKS} x={x} h={h} format={(v) => percent(v)} />
       <line className="scorecard-diagonal" x1={x(0)} y1={y(0)} x2={x(1)} y2={y(1)}>
         <title>Perfect reliability</title>
       </line>
