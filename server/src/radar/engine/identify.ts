@@ -1,3 +1,4 @@
+import { cellKernel } from './cell-kernel.js';
 import { equivalentEllipse } from './ellipse.js';
 import { layerThicknessesM, type PlacedGrid } from './grid.js';
 import { labelGrid } from './label.js';
@@ -95,15 +96,21 @@ function rowRunningSums(areaKm2: Float64Array, nx: number, ny: number): Float64A
 }
 
 /** Finds the cells of one scan and describes each (DESIGN §3.1). */
-export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_IDENTIFY): IdentifyResult {
+export function identifyCells(
+  grid: PlacedGrid,
+  s: IdentifySettings = DEFAULT_IDENTIFY,
+  options: { useWasm?: boolean } = {},
+): IdentifyResult {
   const { nx, ny, nz, data, nodata } = grid;
   const is3d = nz > 1;
+  const kernel = options.useWasm === false ? null : cellKernel();
   const labelling = labelGrid(
     data,
     { nx, ny, nz },
     s.thresholdDbz,
     is3d ? s.connectivity3d : s.connectivity2d,
     nodata,
+    { useWasm: kernel !== null },
   );
   const thicknessKm = is3d ? layerThicknessesM(grid.levelHeightsM).map((m) => m / 1000) : [0];
   const heightsKm = grid.levelHeightsM.map((m) => m / 1000);
@@ -239,14 +246,25 @@ export function identifyCells(grid: PlacedGrid, s: IdentifySettings = DEFAULT_ID
       colIndex[col] = k;
       allColumns[k++] = col;
     }
-  const topLevel = new Int32Array(nCols).fill(-1);
-  const vil = new Float64Array(nCols);
+  let topLevel = new Int32Array(nCols).fill(-1);
+  let vil = new Float64Array(nCols);
   const rain = new Float64Array(nCols).fill(Number.NaN);
   for (let k = 0; k < nCols; k++) {
     const lowest = data[allColumns[k]];
     if (Number.isFinite(lowest) && lowest !== nodata) rain[k] = rainRate(lowest, s.zr);
   }
-  if (is3d) {
+  if (is3d && kernel) {
+    ({ topLevel, vil } = kernel.columnQuantities(
+      data,
+      plane,
+      nz,
+      allColumns,
+      grid.levelHeightsM,
+      s.echoTopDbz,
+      s.vilCapDbz,
+      nodata,
+    ));
+  } else if (is3d) {
     const below = new Float64Array(nCols);
     const echoTopDbz = s.echoTopDbz;
     const vilCapDbz = s.vilCapDbz;

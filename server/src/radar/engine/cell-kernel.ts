@@ -1,0 +1,267 @@
+/**
+ * The WebAssembly kernel of the cell step (server/wasm/cells.ts, built at install into
+ * server/wasm/build/cells.wasm): the threshold scan that finds runs eight floats at a time, the run
+ * labelling, and the per-column echo top and VIL. The plain-JS code in label.ts and identify.ts stays
+ * the reference and the fallback: without the .wasm file or without WebAssembly SIMD, `cellKernel()`
+ * is null and the cell step runs in JS with the same results.
+ */
+import { existsSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { exactMeanLogOffset, fastMathTables } from './fast-math.js';
+import type { GridShape, Runs } from './label.js';
+
+// The same relative path from src/radar/engine (vitest, tsx) and dist/radar/engine (the built server).
+const WASM_FILE = fileURLToPath(new URL('../../../wasm/build/cells.wasm', import.meta.url));
+
+interface KernelExports {
+  scanRows(
+    dataPtr: number,
+    nx: number,
+    ny: number,
+    rowFrom: number,
+    rowTo: number,
+    lowest: number,
+    useNodata: number,
+    nodata: number,
+    runsPtr: number,
+    count: number,
+    rowStartPtr: number,
+  ): number;
+  joinRuns(
+    runsPtr: number,
+    count: number,
+    rowStartPtr: number,
+    nz: number,
+    ny: number,
+    neighboursPtr: number,
+    nNeighbours: number,
+    parentPtr: number,
+    labelPtr: number,
+  ): number;
+  columnQuantities(
+    dataPtr: number,
+    plane: number,
+    nz: number,
+    columnsPtr: number,
+    nCols: number,
+    heightsPtr: number,
+    echoTopDbz: number,
+    capDbz: number,
+    useNodata: number,
+    nodata: number,
+    tablesPtr: number,
+    topLevelPtr: number,
+    vilPtr: number,
+    belowPtr: number,
+  ): void;
+}
+
+// Node has WebAssembly, but the type libraries here (no DOM) do not declare it: the little used here.
+interface WasmMemory {
+  readonly buffer: ArrayBuffer;
+  grow(pages: number): number;
+}
+interface WasmApi {
+  Memory: new (d: { initial: number; maximum: number }) => WasmMemory;
+  Module: new (bytes: Uint8Array) => object;
+  Instance: new (module: object, imports: object) => { exports: unknown };
+}
+const wasm = (globalThis as unknown as { WebAssembly: WasmApi }).WebAssembly;
+
+export interface NeighbourRow {
+  dz: number;
+  dy: number;
+  diagonal: boolean;
+}
+
+const PAGE = 65536;
+/** The kernel keeps no data of its own; the first kilobyte is left free all the same. */
+const TABLES_AT = 1024;
+const align = (n: number) => Math.ceil(n / 64) * 64;
+
+/** The smallest float32 at or above t: a float32 x is ≥ t exactly when x ≥ this (NaN stays NaN). */
+export function lowestFloat32AtOrAbove(t: number): number {
+  const f = Math.fround(t);
+  if (!(f < t)) return f;
+  const one = new Float32Array([f]);
+  const bits = new Int32Array(one.buffer);
+  if (f === 0) bits[0] = 1;
+  else if (f > 0) bits[0]++;
+  else bits[0]--;
+  return one[0];
+}
+
+export class CellKernel {
+  private readonly memory = new wasm.Memory({ initial: 8, maximum: 65536 });
+  private readonly k: KernelExports;
+  private readonly dataAt: number;
+  /** The volume whose floats are in memory now, set by `label` and read by `columnQuantities`. */
+  private loaded: { data: Float32Array; end: number } | null = null;
+
+  constructor(module: object) {
+    const instance = new wasm.Instance(module, {
+      env: { memory: this.memory },
+      cells: { pow10Exact: (y: number) => 10 ** y, meanLogOffsetExact: exactMeanLogOffset },
+    });
+    this.k = instance.exports as unknown as KernelExports;
+    const tables = fastMathTables();
+    this.reserve(TABLES_AT + tables.byteLength);
+    new Float64Array(this.memory.buffer, TABLES_AT, tables.length).set(tables);
+    this.dataAt = align(TABLES_AT + tables.byteLength);
+  }
+
+  /** Grows the memory to hold `bytes` (views made before a growth are detached: make them after). */
+  private reserve(bytes: number): void {
+    const have = this.memory.buffer.byteLength;
+    if (bytes > have) this.memory.grow(Math.ceil((bytes - have) / PAGE));
+  }
+
+  /**
+   * Runs and components of the voxels ≥ threshold (and ≠ nodata), exactly as label.ts finds them.
+   * The floats stay in the kernel's memory for `columnQuantities` on the same array.
+   */
+  label(
+    data: Float32Array,
+    shape: GridShape,
+    threshold: number,
+    rows: NeighbourRow[],
+    nodata: number | undefined,
+  ): { runs: Runs; components: number } {
+    const { nx, ny, nz } = shape;
+    const k = this.k;
+    const lowest = lowestFloat32AtOrAbove(threshold);
+    // Nodata matters only when it would pass, and only a float32 value can equal a float32 voxel.
+    const useNodata = nodata !== undefined && nodata >= threshold && Math.fround(nodata) === nodata ? 1 : 0;
+    const dataAt = this.dataAt;
+    const rowStartAt = align(dataAt + data.byteLength);
+    const neighboursAt = align(rowStartAt + (nz * ny + 1) * 4);
+    const runsAt = align(neighboursAt + rows.length * 12);
+    const maxRunsPerLevel = Math.ceil(nx / 2) * ny;
+    this.reserve(runsAt + maxRunsPerLevel * 16);
+    new Float32Array(this.memory.buffer, dataAt, data.length).set(data);
+    this.loaded = null;
+    const neighbours = new Int32Array(this.memory.buffer, neighboursAt, rows.length * 3);
+    for (const [i, r] of rows.entries()) neighbours.set([r.dz, r.dy, r.diagonal ? 1 : 0], i * 3);
+
+    let count = 0;
+    for (let z = 0; z < nz; z++) {
+      this.reserve(runsAt + (count + maxRunsPerLevel) * 16);
+      count = k.scanRows(
+        dataAt,
+        nx,
+        ny,
+        z * ny,
+        (z + 1) * ny,
+        lowest,
+        useNodata,
+        nodata ?? 0,
+        runsAt,
+        count,
+        rowStartAt,
+      );
+    }
+    const parentAt = align(runsAt + count * 16);
+    const labelAt = align(parentAt + count * 4);
+    this.reserve(labelAt + count * 4);
+    new Int32Array(this.memory.buffer, rowStartAt, nz * ny + 1)[nz * ny] = count;
+    const components = k.joinRuns(
+      runsAt,
+      count,
+      rowStartAt,
+      nz,
+      ny,
+      neighboursAt,
+      rows.length,
+      parentAt,
+      labelAt,
+    );
+
+    const packed = new Int32Array(this.memory.buffer, runsAt, count * 4);
+    const z = new Int32Array(count);
+    const y = new Int32Array(count);
+    const x0 = new Int32Array(count);
+    const x1 = new Int32Array(count);
+    for (let i = 0, p = 0; i < count; i++, p += 4) {
+      z[i] = packed[p];
+      y[i] = packed[p + 1];
+      x0[i] = packed[p + 2];
+      x1[i] = packed[p + 3];
+    }
+    const label = new Int32Array(this.memory.buffer, labelAt, count).slice();
+    this.loaded = { data, end: rowStartAt };
+    return { runs: { count, z, y, x0, x1, label }, components };
+  }
+
+  /**
+   * Per listed column (y·nx + x, ascending): the highest level ≥ echoTopDbz (−1 if none) and the
+   * column's VIL, as identify.ts's JS loop works them out. `data` must be the array just labelled.
+   */
+  columnQuantities(
+    data: Float32Array,
+    plane: number,
+    nz: number,
+    columns: Int32Array,
+    heightsM: number[],
+    echoTopDbz: number,
+    capDbz: number,
+    nodata: number | undefined,
+  ): { topLevel: Int32Array<ArrayBuffer>; vil: Float64Array<ArrayBuffer> } {
+    if (this.loaded?.data !== data) throw new Error('columnQuantities: label this volume first');
+    const n = columns.length;
+    const columnsAt = align(this.loaded.end);
+    const heightsAt = align(columnsAt + n * 4);
+    const topAt = align(heightsAt + nz * 8);
+    const vilAt = align(topAt + n * 4);
+    const belowAt = align(vilAt + n * 8);
+    this.reserve(belowAt + n * 8);
+    const buffer = this.memory.buffer;
+    new Int32Array(buffer, columnsAt, n).set(columns);
+    new Float64Array(buffer, heightsAt, nz).set(heightsM);
+    const useNodata = nodata !== undefined && !Number.isNaN(nodata) ? 1 : 0;
+    this.k.columnQuantities(
+      this.dataAt,
+      plane,
+      nz,
+      columnsAt,
+      n,
+      heightsAt,
+      echoTopDbz,
+      capDbz,
+      useNodata,
+      nodata ?? 0,
+      TABLES_AT,
+      topAt,
+      vilAt,
+      belowAt,
+    );
+    return {
+      topLevel: new Int32Array(buffer, topAt, n).slice(),
+      vil: new Float64Array(buffer, vilAt, n).slice(),
+    };
+  }
+}
+
+let kernel: CellKernel | null | undefined;
+let unavailableBecause = '';
+
+/** The kernel, or null (and why, in `cellKernelStatus()`) when the .wasm is missing or cannot run here. */
+export function cellKernel(): CellKernel | null {
+  if (kernel !== undefined) return kernel;
+  kernel = null;
+  if (process.env.CELL_KERNEL === 'js') unavailableBecause = 'CELL_KERNEL=js';
+  else if (!existsSync(WASM_FILE))
+    unavailableBecause = `${WASM_FILE} is missing (npm run build:wasm -w server builds it)`;
+  else {
+    try {
+      kernel = new CellKernel(new wasm.Module(readFileSync(WASM_FILE)));
+    } catch (e) {
+      // Most likely a runtime without WebAssembly SIMD.
+      unavailableBecause = `the kernel does not load here: ${(e as Error).message}`;
+    }
+  }
+  return kernel;
+}
+
+export function cellKernelStatus(): string {
+  return cellKernel() ? `WebAssembly (${WASM_FILE})` : `plain JS: ${unavailableBecause}`;
+}
