@@ -218,9 +218,18 @@ function vilLayer(tablesPtr: usize, lo: f64, hi: f64, dhM: f64, capDbz: f64): f6
   return 3.44e-6 * pow10(tablesPtr, (4.0 / 7.0) * (a / 10 + meanLogOffset(tablesPtr, b - a))) * dhM;
 }
 
+/** One layer's term for the columns at k (one lane), added into vil[k]: the scalar path. */
+@inline
+function addLayer(tablesPtr: usize, vilPtr: usize, belowPtr: usize, k: i32, v: f64, dh: f64, capDbz: f64): void {
+  const p = vilPtr + (<usize>k << 3);
+  store<f64>(p, load<f64>(p) + vilLayer(tablesPtr, load<f64>(belowPtr + (<usize>k << 3)), v, dh, capDbz));
+}
+
 /**
  * For each listed column: the highest level ≥ echoTopDbz (−1 if none) and VIL summed level by level
- * (identify.ts's column loop). Reads go level by level along the sorted column list.
+ * (identify.ts's column loop). Reads go level by level along the sorted column list. Two columns at a
+ * time in f64x2 lanes with the same operations as the scalar vilLayer (IEEE 754 per lane, so the same
+ * results); a pair with a value outside the tables' range takes the scalar path.
  */
 export function columnQuantities(
   dataPtr: usize,
@@ -242,17 +251,91 @@ export function columnQuantities(
     store<i32>(topLevelPtr + (<usize>k << 2), -1);
     store<f64>(vilPtr + (<usize>k << 3), 0);
   }
+  const pairs = nCols & ~1;
+  const zero = f64x2.splat(0);
+  const nanV = f64x2.splat(NaN);
+  const nodataV = f64x2.splat(nodata);
+  const capV = f64x2.splat(capDbz);
+  const gOffset = f64x2.splat(G_LIMIT_DB);
+  const gSteps = f64x2.splat(G_STEPS_PER_DB);
+  const ten = f64x2.splat(10);
+  const fourSevenths = f64x2.splat(4.0 / 7.0);
+  const fractionSteps = f64x2.splat(FRACTION_STEPS);
+  const scale = f64x2.splat(3.44e-6);
+  const gPtr = tablesPtr + ((4097 + 61) << 3);
+  const intPtr = tablesPtr + (4097 << 3);
   for (let z = 0; z < nz; z++) {
     const base = dataPtr + (<usize>z * <usize>plane << 2);
     const dh = z > 0 ? load<f64>(heightsPtr + (<usize>z << 3)) - load<f64>(heightsPtr + (<usize>(z - 1) << 3)) : 0;
-    for (let k = 0; k < nCols; k++) {
+    const dhV = f64x2.splat(dh);
+    let k = 0;
+    for (; k < pairs; k += 2) {
+      const c = columnsPtr + (<usize>k << 2);
+      const raw0 = <f64>load<f32>(base + (<usize>load<i32>(c) << 2));
+      const raw1 = <f64>load<f32>(base + (<usize>load<i32>(c, 4) << 2));
+      let v = f64x2.replace_lane(f64x2.splat(raw0), 1, raw1);
+      if (useNodata) v = v128.bitselect(nanV, v, f64x2.eq(v, nodataV));
+      const top = i64x2.bitmask(f64x2.ge(v, f64x2.splat(echoTopDbz)));
+      if (top & 1) store<i32>(topLevelPtr + (<usize>k << 2), z);
+      if (top & 2) store<i32>(topLevelPtr + (<usize>k << 2), z, 4);
+      const bp = belowPtr + (<usize>k << 3);
+      if (z > 0) {
+        const lo = v128.load(bp);
+        const finite = v128.and(f64x2.eq(f64x2.sub(lo, lo), zero), f64x2.eq(f64x2.sub(v, v), zero));
+        // Lanes without echo at both ends add 0; give them harmless values meanwhile.
+        const a = v128.and(f64x2.min(lo, capV), finite);
+        const b = v128.and(f64x2.min(v, capV), finite);
+        const d = f64x2.sub(b, a);
+        const t = f64x2.mul(f64x2.add(d, gOffset), gSteps);
+        const tInRange = v128.and(f64x2.ge(t, zero), f64x2.lt(t, f64x2.splat(<f64>(G_LENGTH - 1))));
+        const vp = vilPtr + (<usize>k << 3);
+        if (!i64x2.all_true(tInRange)) {
+          addLayer(tablesPtr, vilPtr, belowPtr, k, f64x2.extract_lane(v, 0), dh, capDbz);
+          addLayer(tablesPtr, vilPtr, belowPtr, k + 1, f64x2.extract_lane(v, 1), dh, capDbz);
+        } else {
+          const ti = i32x4.trunc_sat_f64x2_s_zero(t);
+          const i0 = i32x4.extract_lane(ti, 0);
+          const i1 = i32x4.extract_lane(ti, 1);
+          const f = f64x2.sub(t, f64x2.convert_low_i32x4_s(ti));
+          const g0 = gPtr + (<usize>i0 << 3);
+          const g1 = gPtr + (<usize>i1 << 3);
+          const gLo = f64x2.replace_lane(f64x2.splat(load<f64>(g0)), 1, load<f64>(g1));
+          const gHi = f64x2.replace_lane(f64x2.splat(load<f64>(g0, 8)), 1, load<f64>(g1, 8));
+          const mean = f64x2.add(gLo, f64x2.mul(f, f64x2.sub(gHi, gLo)));
+          const y = f64x2.mul(fourSevenths, f64x2.add(f64x2.div(a, ten), mean));
+          const nf = f64x2.floor(y);
+          const nInRange = v128.and(
+            f64x2.ge(nf, f64x2.splat(<f64>N_LO)),
+            f64x2.le(nf, f64x2.splat(<f64>N_HI)),
+          );
+          if (!i64x2.all_true(nInRange)) {
+            addLayer(tablesPtr, vilPtr, belowPtr, k, f64x2.extract_lane(v, 0), dh, capDbz);
+            addLayer(tablesPtr, vilPtr, belowPtr, k + 1, f64x2.extract_lane(v, 1), dh, capDbz);
+          } else {
+            const ni = i32x4.trunc_sat_f64x2_s_zero(nf);
+            const t2 = f64x2.mul(f64x2.sub(y, nf), fractionSteps);
+            const ti2 = i32x4.trunc_sat_f64x2_s_zero(t2);
+            const f2 = f64x2.sub(t2, f64x2.convert_low_i32x4_s(ti2));
+            const p0 = tablesPtr + (<usize>i32x4.extract_lane(ti2, 0) << 3);
+            const p1 = tablesPtr + (<usize>i32x4.extract_lane(ti2, 1) << 3);
+            const pLo = f64x2.replace_lane(f64x2.splat(load<f64>(p0)), 1, load<f64>(p1));
+            const pHi = f64x2.replace_lane(f64x2.splat(load<f64>(p0, 8)), 1, load<f64>(p1, 8));
+            const n0 = intPtr + (<usize>(i32x4.extract_lane(ni, 0) - N_LO) << 3);
+            const n1 = intPtr + (<usize>(i32x4.extract_lane(ni, 1) - N_LO) << 3);
+            const pInt = f64x2.replace_lane(f64x2.splat(load<f64>(n0)), 1, load<f64>(n1));
+            const pow = f64x2.mul(pInt, f64x2.add(pLo, f64x2.mul(f2, f64x2.sub(pHi, pLo))));
+            const term = v128.and(f64x2.mul(f64x2.mul(scale, pow), dhV), finite);
+            v128.store(vp, f64x2.add(v128.load(vp), term));
+          }
+        }
+      }
+      v128.store(bp, v);
+    }
+    for (; k < nCols; k++) {
       const raw = <f64>load<f32>(base + (<usize>load<i32>(columnsPtr + (<usize>k << 2)) << 2));
       const v = useNodata && raw == nodata ? NaN : raw;
       if (v >= echoTopDbz) store<i32>(topLevelPtr + (<usize>k << 2), z);
-      if (z > 0) {
-        const p = vilPtr + (<usize>k << 3);
-        store<f64>(p, load<f64>(p) + vilLayer(tablesPtr, load<f64>(belowPtr + (<usize>k << 3)), v, dh, capDbz));
-      }
+      if (z > 0) addLayer(tablesPtr, vilPtr, belowPtr, k, v, dh, capDbz);
       store<f64>(belowPtr + (<usize>k << 3), v);
     }
   }
