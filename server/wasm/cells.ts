@@ -340,3 +340,90 @@ export function columnQuantities(
     }
   }
 }
+
+/**
+ * identify.ts's per-run sums over the voxels of kept cells, run by run in scan order, with the same
+ * operations: volume, core volume (≥ coreDbz), Z-weighted sums for the centroid, maximum dBZ and its
+ * level, top level. Runs as (z, y, x0, x1) at runsPtr, labels at labelPtr, kept flags (u8) per
+ * component; per column f64 area, x and y; f64 thickness per level. Outputs per component: f64 volume,
+ * core, wz, wx, wy, maxDbz (pre-set to −∞ by this function) and i32 maxZ, topZ.
+ */
+export function runSums(
+  dataPtr: usize,
+  plane: i32,
+  nx: i32,
+  runsPtr: usize,
+  labelPtr: usize,
+  count: i32,
+  keptPtr: usize,
+  components: i32,
+  thicknessPtr: usize,
+  areaPtr: usize,
+  xPtr: usize,
+  yPtr: usize,
+  is3d: i32,
+  coreDbz: f64,
+  tablesPtr: usize,
+  volumePtr: usize,
+  corePtr: usize,
+  wzPtr: usize,
+  wxPtr: usize,
+  wyPtr: usize,
+  maxPtr: usize,
+  maxZPtr: usize,
+  topZPtr: usize,
+): void {
+  for (let c = 0; c < components; c++) {
+    const o = <usize>c << 3;
+    store<f64>(volumePtr + o, 0);
+    store<f64>(corePtr + o, 0);
+    store<f64>(wzPtr + o, 0);
+    store<f64>(wxPtr + o, 0);
+    store<f64>(wyPtr + o, 0);
+    store<f64>(maxPtr + o, -Infinity);
+    store<i32>(maxZPtr + (<usize>c << 2), 0);
+    store<i32>(topZPtr + (<usize>c << 2), 0);
+  }
+  for (let run = 0; run < count; run++) {
+    const c = load<i32>(labelPtr + (<usize>run << 2));
+    if (load<u8>(keptPtr + <usize>c) == 0) continue;
+    const r = runsPtr + (<usize>run << 4);
+    const z = load<i32>(r);
+    const rowBase = load<i32>(r, 4) * nx;
+    const x0 = load<i32>(r, 8);
+    const x1 = load<i32>(r, 12);
+    const ci = <usize>c << 2;
+    const co = <usize>c << 3;
+    if (z > load<i32>(topZPtr + ci)) store<i32>(topZPtr + ci, z);
+    const thickness = load<f64>(thicknessPtr + (<usize>z << 3));
+    const base = dataPtr + (<usize>z * <usize>plane << 2);
+    let vol = load<f64>(volumePtr + co);
+    let cor = load<f64>(corePtr + co);
+    let sw = load<f64>(wzPtr + co);
+    let sx = load<f64>(wxPtr + co);
+    let sy = load<f64>(wyPtr + co);
+    let mx = load<f64>(maxPtr + co);
+    for (let x = x0; x < x1; x++) {
+      const col = <usize>(rowBase + x);
+      const v = <f64>load<f32>(base + (col << 2));
+      const area = load<f64>(areaPtr + (col << 3));
+      const cellVolume = area * thickness;
+      vol += cellVolume;
+      if (v >= coreDbz) cor += cellVolume;
+      if (v > mx) {
+        mx = v;
+        store<i32>(maxZPtr + ci, z);
+      }
+      const w = pow10(tablesPtr, v / 10) * (is3d ? cellVolume : area);
+      sw += w;
+      sx += w * load<f64>(xPtr + (col << 3));
+      sy += w * load<f64>(yPtr + (col << 3));
+    }
+    store<f64>(volumePtr + co, vol);
+    store<f64>(corePtr + co, cor);
+    store<f64>(wzPtr + co, sw);
+    store<f64>(wxPtr + co, sx);
+    store<f64>(wyPtr + co, sy);
+    store<f64>(maxPtr + co, mx);
+  }
+}

@@ -54,6 +54,31 @@ interface KernelExports {
     vilPtr: number,
     belowPtr: number,
   ): void;
+  runSums(
+    dataPtr: number,
+    plane: number,
+    nx: number,
+    runsPtr: number,
+    labelPtr: number,
+    count: number,
+    keptPtr: number,
+    components: number,
+    thicknessPtr: number,
+    areaPtr: number,
+    xPtr: number,
+    yPtr: number,
+    is3d: number,
+    coreDbz: number,
+    tablesPtr: number,
+    volumePtr: number,
+    corePtr: number,
+    wzPtr: number,
+    wxPtr: number,
+    wyPtr: number,
+    maxPtr: number,
+    maxZPtr: number,
+    topZPtr: number,
+  ): void;
 }
 
 // Node has WebAssembly, but the type libraries here (no DOM) do not declare it: the little used here.
@@ -94,9 +119,20 @@ export function lowestFloat32AtOrAbove(t: number): number {
 export class CellKernel {
   private readonly memory = new wasm.Memory({ initial: 8, maximum: 65536 });
   private readonly k: KernelExports;
-  private readonly dataAt: number;
-  /** The volume whose floats are in memory now, set by `label` and read by `columnQuantities`. */
-  private loaded: { data: Float32Array; end: number } | null = null;
+  /** Per-column area, x and y of the last grid (3 · plane f64), kept while the same arrays come back. */
+  private readonly geometryAt: number;
+  private geometry: { areaKm2: Float64Array; xKm: Float64Array; yKm: Float64Array } | null = null;
+  private dataAt = 0;
+  /** The volume whose floats and runs are in memory now, set by `label`, read by the other steps. */
+  private loaded: {
+    data: Float32Array;
+    plane: number;
+    runsAt: number;
+    labelAt: number;
+    count: number;
+    components: number;
+    end: number;
+  } | null = null;
 
   constructor(module: object) {
     const instance = new wasm.Instance(module, {
@@ -107,7 +143,7 @@ export class CellKernel {
     const tables = fastMathTables();
     this.reserve(TABLES_AT + tables.byteLength);
     new Float64Array(this.memory.buffer, TABLES_AT, tables.length).set(tables);
-    this.dataAt = align(TABLES_AT + tables.byteLength);
+    this.geometryAt = align(TABLES_AT + tables.byteLength);
   }
 
   /** Grows the memory to hold `bytes` (views made before a growth are detached: make them after). */
@@ -132,7 +168,10 @@ export class CellKernel {
     const lowest = lowestFloat32AtOrAbove(threshold);
     // Nodata matters only when it would pass, and only a float32 value can equal a float32 voxel.
     const useNodata = nodata !== undefined && nodata >= threshold && Math.fround(nodata) === nodata ? 1 : 0;
-    const dataAt = this.dataAt;
+    const plane = nx * ny;
+    const dataAt = align(this.geometryAt + 3 * plane * 8);
+    if (dataAt !== this.dataAt) this.geometry = null;
+    this.dataAt = dataAt;
     const rowStartAt = align(dataAt + data.byteLength);
     const neighboursAt = align(rowStartAt + (nz * ny + 1) * 4);
     const runsAt = align(neighboursAt + rows.length * 12);
@@ -188,8 +227,82 @@ export class CellKernel {
       x1[i] = packed[p + 3];
     }
     const label = new Int32Array(this.memory.buffer, labelAt, count).slice();
-    this.loaded = { data, end: rowStartAt };
+    this.loaded = { data, plane, runsAt, labelAt, count, components, end: labelAt + count * 4 };
     return { runs: { count, z, y, x0, x1, label }, components };
+  }
+
+  /**
+   * identify.ts's per-run sums for the kept components of the volume just labelled: volume, core
+   * volume, Z-weighted sums for the centroid, maximum dBZ with its level, and the top level.
+   */
+  runSums(
+    data: Float32Array,
+    nx: number,
+    kept: Uint8Array,
+    thicknessKm: number[],
+    areaKm2: Float64Array,
+    xKm: Float64Array,
+    yKm: Float64Array,
+    is3d: boolean,
+    coreDbz: number,
+  ) {
+    const loaded = this.loaded;
+    if (loaded?.data !== data) throw new Error('runSums: label this volume first');
+    const { plane, components } = loaded;
+    const g = this.geometry;
+    if (!g || g.areaKm2 !== areaKm2 || g.xKm !== xKm || g.yKm !== yKm) {
+      const at = this.geometryAt;
+      new Float64Array(this.memory.buffer, at, plane).set(areaKm2);
+      new Float64Array(this.memory.buffer, at + plane * 8, plane).set(xKm);
+      new Float64Array(this.memory.buffer, at + plane * 16, plane).set(yKm);
+      this.geometry = { areaKm2, xKm, yKm };
+    }
+    const keptAt = align(loaded.end);
+    const thicknessAt = align(keptAt + components);
+    const f64At = align(thicknessAt + thicknessKm.length * 8);
+    const each = align(components * 8);
+    const maxZAt = f64At + 6 * each;
+    const topZAt = maxZAt + align(components * 4);
+    this.reserve(topZAt + components * 4);
+    const buffer = this.memory.buffer;
+    new Uint8Array(buffer, keptAt, components).set(kept);
+    new Float64Array(buffer, thicknessAt, thicknessKm.length).set(thicknessKm);
+    this.k.runSums(
+      this.dataAt,
+      plane,
+      nx,
+      loaded.runsAt,
+      loaded.labelAt,
+      loaded.count,
+      keptAt,
+      components,
+      thicknessAt,
+      this.geometryAt,
+      this.geometryAt + plane * 8,
+      this.geometryAt + plane * 16,
+      is3d ? 1 : 0,
+      coreDbz,
+      TABLES_AT,
+      f64At,
+      f64At + each,
+      f64At + 2 * each,
+      f64At + 3 * each,
+      f64At + 4 * each,
+      f64At + 5 * each,
+      maxZAt,
+      topZAt,
+    );
+    const out = (i: number) => new Float64Array(buffer, f64At + i * each, components).slice();
+    return {
+      volume: out(0),
+      core: out(1),
+      wz: out(2),
+      wx: out(3),
+      wy: out(4),
+      maxDbz: out(5),
+      maxZ: new Int32Array(buffer, maxZAt, components).slice(),
+      topZ: new Int32Array(buffer, topZAt, components).slice(),
+    };
   }
 
   /**

@@ -1,7 +1,7 @@
 import { cellKernel } from './cell-kernel.js';
 import { equivalentEllipse } from './ellipse.js';
 import { layerThicknessesM, type PlacedGrid } from './grid.js';
-import { labelGrid } from './label.js';
+import { labelGrid, type Runs } from './label.js';
 import { dbzToZ, rainRate, vilLayer, type ZR } from './reflectivity.js';
 
 export interface IdentifySettings {
@@ -95,6 +95,65 @@ function rowRunningSums(areaKm2: Float64Array, nx: number, ny: number): Float64A
   return sums;
 }
 
+/** The per-run sums of identifyCells in plain JS (the WebAssembly kernel's reference). */
+function runSums(grid: PlacedGrid, runs: Runs, kept: Uint8Array, thicknessKm: number[], coreDbz: number) {
+  const { nx, ny, data, areaKm2, xKm, yKm } = grid;
+  const plane = nx * ny;
+  const is3d = grid.nz > 1;
+  const components = kept.length;
+  const rz = runs.z;
+  const ry = runs.y;
+  const rx0 = runs.x0;
+  const rx1 = runs.x1;
+  const rl = runs.label;
+  const volume = new Float64Array(components);
+  const core = new Float64Array(components);
+  const wz = new Float64Array(components);
+  const wx = new Float64Array(components);
+  const wy = new Float64Array(components);
+  const maxDbz = new Float64Array(components).fill(-Infinity);
+  const maxZ = new Int32Array(components);
+  const topZ = new Int32Array(components);
+  for (let run = 0; run < runs.count; run++) {
+    const c = rl[run];
+    if (kept[c] === 0) continue;
+    const z = rz[run];
+    const rowBase = ry[run] * nx;
+    if (z > topZ[c]) topZ[c] = z;
+    const thickness = thicknessKm[z];
+    const base = z * plane;
+    let vol = volume[c];
+    let cor = core[c];
+    let sw = wz[c];
+    let sx = wx[c];
+    let sy = wy[c];
+    let mx = maxDbz[c];
+    for (let x = rx0[run]; x < rx1[run]; x++) {
+      const col = rowBase + x;
+      const v = data[base + col];
+      const cellVolume = areaKm2[col] * thickness;
+      vol += cellVolume;
+      if (v >= coreDbz) cor += cellVolume;
+      if (v > mx) {
+        mx = v;
+        maxZ[c] = z;
+      }
+      const w = dbzToZ(v) * (is3d ? cellVolume : areaKm2[col]);
+      sw += w;
+      sx += w * xKm[col];
+      sy += w * yKm[col];
+    }
+    volume[c] = vol;
+    core[c] = cor;
+    wz[c] = sw;
+    wx[c] = sx;
+    wy[c] = sy;
+    maxDbz[c] = mx;
+  }
+
+  return { volume, core, wz, wx, wy, maxDbz, maxZ, topZ };
+}
+
 /** Finds the cells of one scan and describes each (DESIGN §3.1). */
 export function identifyCells(
   grid: PlacedGrid,
@@ -145,53 +204,11 @@ export function identifyCells(
 
   // Sums over each kept cell's voxels in one pass over the runs in scan order, i.e. along memory.
   // Each cell still sees its own voxels in scan order, so every sum is the same as cell by cell.
-  const volume = new Float64Array(components);
-  const core = new Float64Array(components);
-  const wz = new Float64Array(components);
-  const wx = new Float64Array(components);
-  const wy = new Float64Array(components);
-  const maxDbz = new Float64Array(components).fill(-Infinity);
-  const maxZ = new Int32Array(components);
-  const topZ = new Int32Array(components);
   const xKm = grid.xKm;
   const yKm = grid.yKm;
-  const coreDbz = s.coreDbz;
-  for (let run = 0; run < runs.count; run++) {
-    const c = rl[run];
-    if (kept[c] === 0) continue;
-    const z = rz[run];
-    const rowBase = ry[run] * nx;
-    if (z > topZ[c]) topZ[c] = z;
-    const thickness = thicknessKm[z];
-    const base = z * plane;
-    let vol = volume[c];
-    let cor = core[c];
-    let sw = wz[c];
-    let sx = wx[c];
-    let sy = wy[c];
-    let mx = maxDbz[c];
-    for (let x = rx0[run]; x < rx1[run]; x++) {
-      const col = rowBase + x;
-      const v = data[base + col];
-      const cellVolume = areaKm2[col] * thickness;
-      vol += cellVolume;
-      if (v >= coreDbz) cor += cellVolume;
-      if (v > mx) {
-        mx = v;
-        maxZ[c] = z;
-      }
-      const w = dbzToZ(v) * (is3d ? cellVolume : areaKm2[col]);
-      sw += w;
-      sx += w * xKm[col];
-      sy += w * yKm[col];
-    }
-    volume[c] = vol;
-    core[c] = cor;
-    wz[c] = sw;
-    wx[c] = sx;
-    wy[c] = sy;
-    maxDbz[c] = mx;
-  }
+  const { volume, core, wz, wx, wy, maxDbz, maxZ, topZ } = kernel
+    ? kernel.runSums(data, nx, kept, thicknessKm, areaKm2, xKm, yKm, is3d, s.coreDbz)
+    : runSums(grid, runs, kept, thicknessKm, s.coreDbz);
 
   // Footprints: each kept cell's columns in order of first appearance (for the area sum), then sorted.
   // Runs are grouped by cell with a stable counting sort, so each cell's runs stay in scan order.
