@@ -210,41 +210,53 @@ export function identifyCells(
     ? kernel.runSums(data, nx, kept, thicknessKm, areaKm2, xKm, yKm, is3d, s.coreDbz)
     : runSums(grid, runs, kept, thicknessKm, s.coreDbz);
 
-  // Footprints: each kept cell's columns in order of first appearance (for the area sum), then sorted.
-  // Runs are grouped by cell with a stable counting sort, so each cell's runs stay in scan order.
+  // Footprints: each kept cell's runs marked on a scratch map of its bounding box, then read back
+  // row by row, which gives the columns already in ascending order (no sort, no plane-sized stamp).
+  // Runs are grouped by cell with a stable counting sort first.
   const firstRun = new Int32Array(components + 1);
   for (let i = 0; i < runs.count; i++) if (kept[rl[i]]) firstRun[rl[i] + 1]++;
   for (let c = 0; c < components; c++) firstRun[c + 1] += firstRun[c];
   const order = new Int32Array(firstRun[components]);
   const fill = firstRun.slice(0, components);
   for (let i = 0; i < runs.count; i++) if (kept[rl[i]]) order[fill[rl[i]]++] = i;
-  const stamp = new Int32Array(plane).fill(-1);
   const footprints: Int32Array[] = [];
   const areas: number[] = [];
-  let cols = new Int32Array(1024);
+  let marks = new Uint8Array(4096);
   for (let c = 0; c < components; c++) {
     if (kept[c] === 0) continue;
-    let n = 0;
+    let yLo = ny;
+    let yHi = -1;
+    let xLo = nx;
+    let xHi = -1;
     for (let r = firstRun[c]; r < firstRun[c + 1]; r++) {
       const run = order[r];
-      const rowBase = ry[run] * nx;
-      for (let x = rx0[run]; x < rx1[run]; x++) {
-        const col = rowBase + x;
-        if (stamp[col] !== c) {
-          stamp[col] = c;
-          if (n === cols.length) {
-            const bigger = new Int32Array(n * 2);
-            bigger.set(cols);
-            cols = bigger;
-          }
-          cols[n++] = col;
-        }
-      }
+      if (ry[run] < yLo) yLo = ry[run];
+      if (ry[run] > yHi) yHi = ry[run];
+      if (rx0[run] < xLo) xLo = rx0[run];
+      if (rx1[run] > xHi) xHi = rx1[run];
     }
+    const width = xHi - xLo;
+    const boxSize = (yHi - yLo + 1) * width;
+    if (boxSize > marks.length) marks = new Uint8Array(boxSize);
+    else marks.fill(0, 0, boxSize);
+    for (let r = firstRun[c]; r < firstRun[c + 1]; r++) {
+      const run = order[r];
+      const at = (ry[run] - yLo) * width - xLo;
+      marks.fill(1, at + rx0[run], at + rx1[run]);
+    }
+    let n = 0;
+    for (let i = 0; i < boxSize; i++) n += marks[i];
+    const columns = new Int32Array(n);
     let area = 0;
-    for (let i = 0; i < n; i++) area += areaKm2[cols[i]];
+    for (let y = yLo, i = 0, k = 0; y <= yHi; y++)
+      for (let x = xLo; x < xHi; x++, i++)
+        if (marks[i] === 1) {
+          const col = y * nx + x;
+          columns[k++] = col;
+          area += areaKm2[col];
+        }
     areas.push(area);
-    footprints.push(cols.slice(0, n).sort());
+    footprints.push(columns);
   }
 
   // Column quantities (echo top, VIL, rain at the lowest level) depend on the column alone: work
