@@ -427,3 +427,30 @@ export function runSums(
     store<f64>(maxPtr + co, mx);
   }
 }
+
+/**
+ * Size of every component from its runs alone (identify.ts's first pass): each run's area is a
+ * difference of its row's running sums of column areas (rowSums, ny · (nx + 1) f64), times the level's
+ * thickness in a volume. Sizes (f64 per component) in run order, as the JS path adds them.
+ */
+export function runSizes(
+  runsPtr: usize,
+  labelPtr: usize,
+  count: i32,
+  components: i32,
+  nx: i32,
+  rowSumsPtr: usize,
+  thicknessPtr: usize,
+  is3d: i32,
+  sizePtr: usize,
+): void {
+  for (let c = 0; c < components; c++) store<f64>(sizePtr + (<usize>c << 3), 0);
+  for (let run = 0; run < count; run++) {
+    const r = runsPtr + (<usize>run << 4);
+    const rowBase = rowSumsPtr + (<usize>(load<i32>(r, 4) * (nx + 1)) << 3);
+    const thickness = is3d ? load<f64>(thicknessPtr + (<usize>load<i32>(r) << 3)) : 1;
+    const p = sizePtr + (<usize>load<i32>(labelPtr + (<usize>run << 2)) << 3);
+    const area = load<f64>(rowBase + (<usize>load<i32>(r, 12) << 3)) - load<f64>(rowBase + (<usize>load<i32>(r, 8) << 3));
+    store<f64>(p, load<f64>(p) + area * thickness);
+  }
+}

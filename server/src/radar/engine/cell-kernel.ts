@@ -79,6 +79,17 @@ interface KernelExports {
     maxZPtr: number,
     topZPtr: number,
   ): void;
+  runSizes(
+    runsPtr: number,
+    labelPtr: number,
+    count: number,
+    components: number,
+    nx: number,
+    rowSumsPtr: number,
+    thicknessPtr: number,
+    is3d: number,
+    sizePtr: number,
+  ): void;
 }
 
 // Node has WebAssembly, but the type libraries here (no DOM) do not declare it: the little used here.
@@ -119,13 +130,18 @@ export function lowestFloat32AtOrAbove(t: number): number {
 export class CellKernel {
   private readonly memory = new wasm.Memory({ initial: 8, maximum: 65536 });
   private readonly k: KernelExports;
-  /** Per-column area, x and y of the last grid (3 · plane f64), kept while the same arrays come back. */
+  /**
+   * Per-column area, x and y of the last grid (3 · plane f64) and its rows' running sums of area
+   * (ny · (nx + 1) f64), kept while the same arrays come back (a site's scans share them).
+   */
   private readonly geometryAt: number;
   private geometry: { areaKm2: Float64Array; xKm: Float64Array; yKm: Float64Array } | null = null;
+  private rowSums: Float64Array | null = null;
   private dataAt = 0;
   /** The volume whose floats and runs are in memory now, set by `label`, read by the other steps. */
   private loaded: {
     data: Float32Array;
+    nx: number;
     plane: number;
     runsAt: number;
     labelAt: number;
@@ -169,8 +185,11 @@ export class CellKernel {
     // Nodata matters only when it would pass, and only a float32 value can equal a float32 voxel.
     const useNodata = nodata !== undefined && nodata >= threshold && Math.fround(nodata) === nodata ? 1 : 0;
     const plane = nx * ny;
-    const dataAt = align(this.geometryAt + 3 * plane * 8);
-    if (dataAt !== this.dataAt) this.geometry = null;
+    const dataAt = align(this.geometryAt + (3 * plane + ny * (nx + 1)) * 8);
+    if (dataAt !== this.dataAt) {
+      this.geometry = null;
+      this.rowSums = null;
+    }
     this.dataAt = dataAt;
     const rowStartAt = align(dataAt + data.byteLength);
     const neighboursAt = align(rowStartAt + (nz * ny + 1) * 4);
@@ -227,8 +246,37 @@ export class CellKernel {
       x1[i] = packed[p + 3];
     }
     const label = new Int32Array(this.memory.buffer, labelAt, count).slice();
-    this.loaded = { data, plane, runsAt, labelAt, count, components, end: labelAt + count * 4 };
+    this.loaded = { data, nx, plane, runsAt, labelAt, count, components, end: labelAt + count * 4 };
     return { runs: { count, z, y, x0, x1, label }, components };
+  }
+
+  /** Size of every component of the volume just labelled, from its runs (identify.ts's first pass). */
+  runSizes(data: Float32Array, rowSums: Float64Array, thicknessKm: number[], is3d: boolean): Float64Array {
+    const loaded = this.loaded;
+    if (loaded?.data !== data) throw new Error('runSizes: label this volume first');
+    const rowSumsAt = this.geometryAt + 3 * loaded.plane * 8;
+    if (rowSums.length !== loaded.plane + loaded.plane / loaded.nx)
+      throw new Error('runSizes: the running sums do not fit the grid');
+    if (this.rowSums !== rowSums) {
+      new Float64Array(this.memory.buffer, rowSumsAt, rowSums.length).set(rowSums);
+      this.rowSums = rowSums;
+    }
+    const thicknessAt = align(loaded.end);
+    const sizeAt = align(thicknessAt + thicknessKm.length * 8);
+    this.reserve(sizeAt + loaded.components * 8);
+    new Float64Array(this.memory.buffer, thicknessAt, thicknessKm.length).set(thicknessKm);
+    this.k.runSizes(
+      loaded.runsAt,
+      loaded.labelAt,
+      loaded.count,
+      loaded.components,
+      loaded.nx,
+      rowSumsAt,
+      thicknessAt,
+      is3d ? 1 : 0,
+      sizeAt,
+    );
+    return new Float64Array(this.memory.buffer, sizeAt, loaded.components).slice();
   }
 
   /**

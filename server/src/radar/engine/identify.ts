@@ -187,11 +187,15 @@ export function identifyCells(
   // Size first, from the runs alone: most regions are speckle and are dropped without reading a value.
   // A run's area is a difference of its row's running sums of column areas.
   const rowSums = rowRunningSums(areaKm2, nx, ny);
-  const size = new Float64Array(components);
-  for (let i = 0; i < runs.count; i++) {
-    const rowBase = ry[i] * (nx + 1);
-    const thickness = is3dSize ? thicknessKm[rz[i]] : 1;
-    size[rl[i]] += (rowSums[rowBase + rx1[i]] - rowSums[rowBase + rx0[i]]) * thickness;
+  let size: Float64Array;
+  if (kernel) size = kernel.runSizes(data, rowSums, thicknessKm, is3d);
+  else {
+    size = new Float64Array(components);
+    for (let i = 0; i < runs.count; i++) {
+      const rowBase = ry[i] * (nx + 1);
+      const thickness = is3dSize ? thicknessKm[rz[i]] : 1;
+      size[rl[i]] += (rowSums[rowBase + rx1[i]] - rowSums[rowBase + rx0[i]]) * thickness;
+    }
   }
   // 2-D runs never share a column, so their summed area is the footprint.
   const minSize = is3d ? s.minVolumeKm3 : s.minAreaKm2;
