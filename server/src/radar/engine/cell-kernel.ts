@@ -194,29 +194,23 @@ export class CellKernel {
     const rowStartAt = align(dataAt + data.byteLength);
     const neighboursAt = align(rowStartAt + (nz * ny + 1) * 4);
     const runsAt = align(neighboursAt + rows.length * 12);
-    const maxRunsPerLevel = Math.ceil(nx / 2) * ny;
-    this.reserve(runsAt + maxRunsPerLevel * 16);
-    new Float32Array(this.memory.buffer, dataAt, data.length).set(data);
+    // Copy a block of rows (a quarter megabyte or so) and scan it while it is still in the cache.
+    const rowsPerBlock = Math.max(1, Math.floor(65536 / nx));
+    const maxRunsPerBlock = Math.ceil(nx / 2) * rowsPerBlock;
+    this.reserve(runsAt + maxRunsPerBlock * 16);
     this.loaded = null;
     const neighbours = new Int32Array(this.memory.buffer, neighboursAt, rows.length * 3);
     for (const [i, r] of rows.entries()) neighbours.set([r.dz, r.dy, r.diagonal ? 1 : 0], i * 3);
 
     let count = 0;
-    for (let z = 0; z < nz; z++) {
-      this.reserve(runsAt + (count + maxRunsPerLevel) * 16);
-      count = k.scanRows(
-        dataAt,
-        nx,
-        ny,
-        z * ny,
-        (z + 1) * ny,
-        lowest,
-        useNodata,
-        nodata ?? 0,
-        runsAt,
-        count,
-        rowStartAt,
+    const totalRows = nz * ny;
+    for (let from = 0; from < totalRows; from += rowsPerBlock) {
+      const to = Math.min(totalRows, from + rowsPerBlock);
+      this.reserve(runsAt + (count + maxRunsPerBlock) * 16);
+      new Float32Array(this.memory.buffer, dataAt + from * nx * 4, (to - from) * nx).set(
+        data.subarray(from * nx, to * nx),
       );
+      count = k.scanRows(dataAt, nx, ny, from, to, lowest, useNodata, nodata ?? 0, runsAt, count, rowStartAt);
     }
     const parentAt = align(runsAt + count * 16);
     const labelAt = align(parentAt + count * 4);
