@@ -414,6 +414,9 @@ export function cellKernel(): CellKernel | null {
       unavailableBecause = `the kernel does not load here: ${(e as Error).message}`;
     }
   }
+  // Said once per thread: the results are the same, only slower.
+  if (!kernel && process.env.CELL_KERNEL !== 'js')
+    console.warn(`Cell step in plain JS: ${unavailableBecause}`);
   return kernel;
 }
 
