@@ -1,8 +1,15 @@
+import { existsSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { cellKernel, cellKernelStatus, lowestFloat32AtOrAbove } from './cell-kernel.js';
+import {
+  CellKernel,
+  cellKernel,
+  cellKernelStatus,
+  lowestFloat32AtOrAbove,
+  WASM_FILE,
+} from './cell-kernel.js';
 import type { PlacedGrid } from './grid.js';
 import { DEFAULT_IDENTIFY, type IdentifiedCell, identifyCells } from './identify.js';
-import { type Connectivity, labelGrid } from './label.js';
+import { type Connectivity, labelGrid, neighbourRows } from './label.js';
 
 // The kernel is the fast path and the plain-JS code its reference: every check here compares the two.
 
@@ -178,5 +185,24 @@ describe.skipIf(!kernel)('the kernel against the plain-JS path', () => {
     identifyCells(b, settings);
     expectSameCells(identifyCells(a, settings).cells, first.cells);
     expectSameCells(first.cells, identifyCells(a, settings, { useWasm: false }).cells);
+  });
+});
+
+describe.skipIf(!existsSync(WASM_FILE))('a kernel whose memory cannot hold the volume', () => {
+  it('says null instead of failing, and grows where it can', () => {
+    // 16 pages of 64 KiB (1 MiB): the tables fit, a 60 × 60 × 80 float volume (1.15 MB) does not.
+    const module = new (
+      globalThis as unknown as { WebAssembly: { Module: new (b: Uint8Array) => object } }
+    ).WebAssembly.Module(readFileSync(WASM_FILE));
+    const small = new CellKernel(module, 16);
+    const rows = neighbourRows(26, true);
+    const big = testVolume(60, 60, 80, 5, FINITE_SPECIAL);
+    expect(small.label(big, { nx: 60, ny: 60, nz: 80 }, 35, rows, -999)).toBeNull();
+    expect(small.holds(big)).toBe(false);
+    const fits = testVolume(20, 20, 6, 5, FINITE_SPECIAL);
+    const viaKernel = small.label(fits, { nx: 20, ny: 20, nz: 6 }, 35, rows, -999);
+    const viaJs = labelGrid(fits, { nx: 20, ny: 20, nz: 6 }, 35, 26, -999, { useWasm: false });
+    expect(viaKernel).toEqual({ runs: viaJs.runs, components: viaJs.components });
+    expect(small.holds(fits)).toBe(true);
   });
 });

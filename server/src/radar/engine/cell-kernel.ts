@@ -11,7 +11,7 @@ import { exactMeanLogOffset, fastMathTables } from './fast-math.js';
 import type { GridShape, Runs } from './label.js';
 
 // The same relative path from src/radar/engine (vitest, tsx) and dist/radar/engine (the built server).
-const WASM_FILE = fileURLToPath(new URL('../../../wasm/build/cells.wasm', import.meta.url));
+export const WASM_FILE = fileURLToPath(new URL('../../../wasm/build/cells.wasm', import.meta.url));
 
 interface KernelExports {
   scanRows(
@@ -127,8 +127,15 @@ export function lowestFloat32AtOrAbove(t: number): number {
   return one[0];
 }
 
+/** 4 GiB, all a 32-bit WebAssembly memory can address. */
+const MAX_PAGES = 65536;
+
+/**
+ * The kernel and its memory. Each step returns null when the memory cannot grow to what the volume
+ * needs (then that step runs in JS: the results are the same).
+ */
 export class CellKernel {
-  private readonly memory = new wasm.Memory({ initial: 8, maximum: 65536 });
+  private readonly memory: WasmMemory;
   private readonly k: KernelExports;
   /**
    * Per-column area, x and y of the last grid (3 · plane f64) and its rows' running sums of area
@@ -150,22 +157,38 @@ export class CellKernel {
     end: number;
   } | null = null;
 
-  constructor(module: object) {
+  constructor(module: object, maximumPages = MAX_PAGES) {
+    this.memory = new wasm.Memory({ initial: 8, maximum: maximumPages });
     const instance = new wasm.Instance(module, {
       env: { memory: this.memory },
       cells: { pow10Exact: (y: number) => 10 ** y, meanLogOffsetExact: exactMeanLogOffset },
     });
     this.k = instance.exports as unknown as KernelExports;
     const tables = fastMathTables();
-    this.reserve(TABLES_AT + tables.byteLength);
+    if (!this.reserve(TABLES_AT + tables.byteLength)) throw new Error('no memory for the tables');
     new Float64Array(this.memory.buffer, TABLES_AT, tables.length).set(tables);
     this.geometryAt = align(TABLES_AT + tables.byteLength);
   }
 
-  /** Grows the memory to hold `bytes` (views made before a growth are detached: make them after). */
-  private reserve(bytes: number): void {
+  /**
+   * Grows the memory to hold `bytes`; false when it cannot (views made before a growth are detached:
+   * make them after).
+   */
+  private reserve(bytes: number): boolean {
     const have = this.memory.buffer.byteLength;
-    if (bytes > have) this.memory.grow(Math.ceil((bytes - have) / PAGE));
+    if (bytes <= have) return true;
+    try {
+      this.memory.grow(Math.ceil((bytes - have) / PAGE));
+      return true;
+    } catch (e) {
+      if (e instanceof RangeError) return false;
+      throw e;
+    }
+  }
+
+  /** Whether `data` is the volume just labelled here (so the other steps may run on it). */
+  holds(data: Float32Array): boolean {
+    return this.loaded?.data === data;
   }
 
   /**
@@ -178,7 +201,7 @@ export class CellKernel {
     threshold: number,
     rows: NeighbourRow[],
     nodata: number | undefined,
-  ): { runs: Runs; components: number } {
+  ): { runs: Runs; components: number } | null {
     const { nx, ny, nz } = shape;
     const k = this.k;
     const lowest = lowestFloat32AtOrAbove(threshold);
@@ -195,18 +218,18 @@ export class CellKernel {
     const neighboursAt = align(rowStartAt + (nz * ny + 1) * 4);
     const runsAt = align(neighboursAt + rows.length * 12);
     // Copy a block of rows (a quarter megabyte or so) and scan it while it is still in the cache.
-    const rowsPerBlock = Math.max(1, Math.floor(65536 / nx));
+    const totalRows = nz * ny;
+    const rowsPerBlock = Math.min(totalRows, Math.max(1, Math.floor(65536 / nx)));
     const maxRunsPerBlock = Math.ceil(nx / 2) * rowsPerBlock;
-    this.reserve(runsAt + maxRunsPerBlock * 16);
     this.loaded = null;
+    if (!this.reserve(runsAt + maxRunsPerBlock * 16)) return null;
     const neighbours = new Int32Array(this.memory.buffer, neighboursAt, rows.length * 3);
     for (const [i, r] of rows.entries()) neighbours.set([r.dz, r.dy, r.diagonal ? 1 : 0], i * 3);
 
     let count = 0;
-    const totalRows = nz * ny;
     for (let from = 0; from < totalRows; from += rowsPerBlock) {
       const to = Math.min(totalRows, from + rowsPerBlock);
-      this.reserve(runsAt + (count + maxRunsPerBlock) * 16);
+      if (!this.reserve(runsAt + (count + maxRunsPerBlock) * 16)) return null;
       new Float32Array(this.memory.buffer, dataAt + from * nx * 4, (to - from) * nx).set(
         data.subarray(from * nx, to * nx),
       );
@@ -214,7 +237,7 @@ export class CellKernel {
     }
     const parentAt = align(runsAt + count * 16);
     const labelAt = align(parentAt + count * 4);
-    this.reserve(labelAt + count * 4);
+    if (!this.reserve(labelAt + count * 4)) return null;
     new Int32Array(this.memory.buffer, rowStartAt, nz * ny + 1)[nz * ny] = count;
     const components = k.joinRuns(
       runsAt,
@@ -245,7 +268,12 @@ export class CellKernel {
   }
 
   /** Size of every component of the volume just labelled, from its runs (identify.ts's first pass). */
-  runSizes(data: Float32Array, rowSums: Float64Array, thicknessKm: number[], is3d: boolean): Float64Array {
+  runSizes(
+    data: Float32Array,
+    rowSums: Float64Array,
+    thicknessKm: number[],
+    is3d: boolean,
+  ): Float64Array | null {
     const loaded = this.loaded;
     if (loaded?.data !== data) throw new Error('runSizes: label this volume first');
     const rowSumsAt = this.geometryAt + 3 * loaded.plane * 8;
@@ -257,7 +285,7 @@ export class CellKernel {
     }
     const thicknessAt = align(loaded.end);
     const sizeAt = align(thicknessAt + thicknessKm.length * 8);
-    this.reserve(sizeAt + loaded.components * 8);
+    if (!this.reserve(sizeAt + loaded.components * 8)) return null;
     new Float64Array(this.memory.buffer, thicknessAt, thicknessKm.length).set(thicknessKm);
     this.k.runSizes(
       loaded.runsAt,
@@ -305,7 +333,7 @@ export class CellKernel {
     const each = align(components * 8);
     const maxZAt = f64At + 6 * each;
     const topZAt = maxZAt + align(components * 4);
-    this.reserve(topZAt + components * 4);
+    if (!this.reserve(topZAt + components * 4)) return null;
     const buffer = this.memory.buffer;
     new Uint8Array(buffer, keptAt, components).set(kept);
     new Float64Array(buffer, thicknessAt, thicknessKm.length).set(thicknessKm);
@@ -360,7 +388,7 @@ export class CellKernel {
     echoTopDbz: number,
     capDbz: number,
     nodata: number | undefined,
-  ): { topLevel: Int32Array<ArrayBuffer>; vil: Float64Array<ArrayBuffer> } {
+  ): { topLevel: Int32Array<ArrayBuffer>; vil: Float64Array<ArrayBuffer> } | null {
     if (this.loaded?.data !== data) throw new Error('columnQuantities: label this volume first');
     const n = columns.length;
     const columnsAt = align(this.loaded.end);
@@ -368,7 +396,7 @@ export class CellKernel {
     const topAt = align(heightsAt + nz * 8);
     const vilAt = align(topAt + n * 4);
     const belowAt = align(vilAt + n * 8);
-    this.reserve(belowAt + n * 8);
+    if (!this.reserve(belowAt + n * 8)) return null;
     const buffer = this.memory.buffer;
     new Int32Array(buffer, columnsAt, n).set(columns);
     new Float64Array(buffer, heightsAt, nz).set(heightsM);

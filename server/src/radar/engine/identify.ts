@@ -162,15 +162,17 @@ export function identifyCells(
 ): IdentifyResult {
   const { nx, ny, nz, data, nodata } = grid;
   const is3d = nz > 1;
-  const kernel = options.useWasm === false ? null : cellKernel();
+  const wanted = options.useWasm === false ? null : cellKernel();
   const labelling = labelGrid(
     data,
     { nx, ny, nz },
     s.thresholdDbz,
     is3d ? s.connectivity3d : s.connectivity2d,
     nodata,
-    { useWasm: kernel !== null },
+    { useWasm: wanted !== null },
   );
+  // The later kernel steps read the floats the kernel labelled; each falls back to JS on a null.
+  const kernel = wanted?.holds(data) ? wanted : null;
   const thicknessKm = is3d ? layerThicknessesM(grid.levelHeightsM).map((m) => m / 1000) : [0];
   const heightsKm = grid.levelHeightsM.map((m) => m / 1000);
   const { runs, components } = labelling;
@@ -187,9 +189,8 @@ export function identifyCells(
   // Size first, from the runs alone: most regions are speckle and are dropped without reading a value.
   // A run's area is a difference of its row's running sums of column areas.
   const rowSums = rowRunningSums(areaKm2, nx, ny);
-  let size: Float64Array;
-  if (kernel) size = kernel.runSizes(data, rowSums, thicknessKm, is3d);
-  else {
+  let size = kernel?.runSizes(data, rowSums, thicknessKm, is3d);
+  if (!size) {
     size = new Float64Array(components);
     for (let i = 0; i < runs.count; i++) {
       const rowBase = ry[i] * (nx + 1);
@@ -210,9 +211,9 @@ export function identifyCells(
   // Each cell still sees its own voxels in scan order, so every sum is the same as cell by cell.
   const xKm = grid.xKm;
   const yKm = grid.yKm;
-  const { volume, core, wz, wx, wy, maxDbz, maxZ, topZ } = kernel
-    ? kernel.runSums(data, nx, kept, thicknessKm, areaKm2, xKm, yKm, is3d, s.coreDbz)
-    : runSums(grid, runs, kept, thicknessKm, s.coreDbz);
+  const { volume, core, wz, wx, wy, maxDbz, maxZ, topZ } =
+    kernel?.runSums(data, nx, kept, thicknessKm, areaKm2, xKm, yKm, is3d, s.coreDbz) ??
+    runSums(grid, runs, kept, thicknessKm, s.coreDbz);
 
   // Footprints: each kept cell's runs marked on a scratch map of its bounding box, then read back
   // row by row, which gives the columns already in ascending order (no sort, no plane-sized stamp).
@@ -286,18 +287,20 @@ export function identifyCells(
     const lowest = data[allColumns[k]];
     if (Number.isFinite(lowest) && lowest !== nodata) rain[k] = rainRate(lowest, s.zr);
   }
-  if (is3d && kernel) {
-    ({ topLevel, vil } = kernel.columnQuantities(
-      data,
-      plane,
-      nz,
-      allColumns,
-      grid.levelHeightsM,
-      s.echoTopDbz,
-      s.vilCapDbz,
-      nodata,
-    ));
-  } else if (is3d) {
+  const fromKernel = is3d
+    ? kernel?.columnQuantities(
+        data,
+        plane,
+        nz,
+        allColumns,
+        grid.levelHeightsM,
+        s.echoTopDbz,
+        s.vilCapDbz,
+        nodata,
+      )
+    : null;
+  if (fromKernel) ({ topLevel, vil } = fromKernel);
+  else if (is3d) {
     const below = new Float64Array(nCols);
     const echoTopDbz = s.echoTopDbz;
     const vilCapDbz = s.vilCapDbz;

@@ -129,10 +129,10 @@ export function labelGrid(
   }
   const rows = neighbourRows(connectivity, nz > 1);
   const kernel = options.useWasm === false ? null : cellKernel();
-  if (kernel && data instanceof Float32Array) {
-    const { runs, components } = kernel.label(data, shape, threshold, rows, nodata);
-    return { shape, runs, components };
-  }
+  // The kernel says null when its memory cannot hold the volume: then the JS path below.
+  const viaKernel =
+    kernel && data instanceof Float32Array ? kernel.label(data, shape, threshold, rows, nodata) : null;
+  if (viaKernel) return { shape, ...viaKernel };
   const rz = new GrowableInt32();
   const ry = new GrowableInt32();
   const rx0 = new GrowableInt32();
