@@ -154,6 +154,117 @@ function runSums(grid: PlacedGrid, runs: Runs, kept: Uint8Array, thicknessKm: nu
   return { volume, core, wz, wx, wy, maxDbz, maxZ, topZ };
 }
 
+/**
+ * Footprints of the kept cells: each cell's runs marked on a scratch map of its bounding box, then read
+ * back row by row, which gives the columns already in ascending order (no sort, no plane-sized stamp).
+ * Runs are grouped by cell with a stable counting sort first. A function of its own so that the engine
+ * optimises its loops early.
+ */
+function footprintsOf(runs: Runs, kept: Uint8Array, nx: number, ny: number, areaKm2: Float64Array) {
+  const components = kept.length;
+  const { y: ry, x0: rx0, x1: rx1, label: rl } = runs;
+  const firstRun = new Int32Array(components + 1);
+  for (let i = 0; i < runs.count; i++) if (kept[rl[i]]) firstRun[rl[i] + 1]++;
+  for (let c = 0; c < components; c++) firstRun[c + 1] += firstRun[c];
+  const order = new Int32Array(firstRun[components]);
+  const fill = firstRun.slice(0, components);
+  for (let i = 0; i < runs.count; i++) if (kept[rl[i]]) order[fill[rl[i]]++] = i;
+  const footprints: Int32Array[] = [];
+  const areas: number[] = [];
+  let marks = new Uint8Array(4096);
+  for (let c = 0; c < components; c++) {
+    if (kept[c] === 0) continue;
+    let yLo = ny;
+    let yHi = -1;
+    let xLo = nx;
+    let xHi = -1;
+    for (let r = firstRun[c]; r < firstRun[c + 1]; r++) {
+      const run = order[r];
+      if (ry[run] < yLo) yLo = ry[run];
+      if (ry[run] > yHi) yHi = ry[run];
+      if (rx0[run] < xLo) xLo = rx0[run];
+      if (rx1[run] > xHi) xHi = rx1[run];
+    }
+    const width = xHi - xLo;
+    const boxSize = (yHi - yLo + 1) * width;
+    if (boxSize > marks.length) marks = new Uint8Array(boxSize);
+    else marks.fill(0, 0, boxSize);
+    for (let r = firstRun[c]; r < firstRun[c + 1]; r++) {
+      const run = order[r];
+      const at = (ry[run] - yLo) * width - xLo;
+      marks.fill(1, at + rx0[run], at + rx1[run]);
+    }
+    let n = 0;
+    for (let i = 0; i < boxSize; i++) n += marks[i];
+    const columns = new Int32Array(n);
+    let area = 0;
+    for (let y = yLo, i = 0, k = 0; y <= yHi; y++)
+      for (let x = xLo; x < xHi; x++, i++)
+        if (marks[i] === 1) {
+          const col = y * nx + x;
+          columns[k++] = col;
+          area += areaKm2[col];
+        }
+    areas.push(area);
+    footprints.push(columns);
+  }
+
+  return { footprints, areas };
+}
+
+/** Rain rate at the lowest level of each listed column (NaN where there is no echo). */
+function rainAt(data: Float32Array, columns: Int32Array, nodata: number | undefined, zr: ZR): Float64Array {
+  const rain = new Float64Array(columns.length).fill(Number.NaN);
+  for (let k = 0; k < columns.length; k++) {
+    const lowest = data[columns[k]];
+    if (Number.isFinite(lowest) && lowest !== nodata) rain[k] = rainRate(lowest, zr);
+  }
+  return rain;
+}
+
+/**
+ * Rain, echo top and VIL over one cell's footprint columns, and the columns' positions for the ellipse
+ * (`topLevel` null for 2-D input).
+ */
+function footprintStats(
+  columns: Int32Array,
+  colIndex: Int32Array,
+  rain: Float64Array,
+  topLevel: Int32Array | null,
+  vil: Float64Array,
+  grid: PlacedGrid,
+) {
+  const { xKm, yKm, areaKm2 } = grid;
+  const n = columns.length;
+  let rainMax = 0;
+  let flux = 0;
+  let echoTopLevel = -1;
+  let vilMax = 0;
+  let vilMass = 0;
+  const xs = new Float64Array(n);
+  const ys = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const col = columns[i];
+    const k = colIndex[col];
+    xs[i] = xKm[col];
+    ys[i] = yKm[col];
+    const r = rain[k];
+    if (!Number.isNaN(r)) {
+      if (r > rainMax) rainMax = r;
+      flux += (r / 3.6e6) * areaKm2[col] * 1e6;
+    }
+  }
+  if (topLevel) {
+    for (let i = 0; i < n; i++) {
+      const k = colIndex[columns[i]];
+      if (topLevel[k] > echoTopLevel) echoTopLevel = topLevel[k];
+      if (vil[k] > vilMax) vilMax = vil[k];
+      vilMass += vil[k] * areaKm2[columns[i]] * 1e6;
+    }
+  }
+  return { rainMax, flux, echoTopLevel, vilMax, vilMass, xs, ys };
+}
+
 /** Finds the cells of one scan and describes each (DESIGN §3.1). */
 export function identifyCells(
   grid: PlacedGrid,
@@ -215,54 +326,7 @@ export function identifyCells(
     kernel?.runSums(data, nx, kept, thicknessKm, areaKm2, xKm, yKm, is3d, s.coreDbz) ??
     runSums(grid, runs, kept, thicknessKm, s.coreDbz);
 
-  // Footprints: each kept cell's runs marked on a scratch map of its bounding box, then read back
-  // row by row, which gives the columns already in ascending order (no sort, no plane-sized stamp).
-  // Runs are grouped by cell with a stable counting sort first.
-  const firstRun = new Int32Array(components + 1);
-  for (let i = 0; i < runs.count; i++) if (kept[rl[i]]) firstRun[rl[i] + 1]++;
-  for (let c = 0; c < components; c++) firstRun[c + 1] += firstRun[c];
-  const order = new Int32Array(firstRun[components]);
-  const fill = firstRun.slice(0, components);
-  for (let i = 0; i < runs.count; i++) if (kept[rl[i]]) order[fill[rl[i]]++] = i;
-  const footprints: Int32Array[] = [];
-  const areas: number[] = [];
-  let marks = new Uint8Array(4096);
-  for (let c = 0; c < components; c++) {
-    if (kept[c] === 0) continue;
-    let yLo = ny;
-    let yHi = -1;
-    let xLo = nx;
-    let xHi = -1;
-    for (let r = firstRun[c]; r < firstRun[c + 1]; r++) {
-      const run = order[r];
-      if (ry[run] < yLo) yLo = ry[run];
-      if (ry[run] > yHi) yHi = ry[run];
-      if (rx0[run] < xLo) xLo = rx0[run];
-      if (rx1[run] > xHi) xHi = rx1[run];
-    }
-    const width = xHi - xLo;
-    const boxSize = (yHi - yLo + 1) * width;
-    if (boxSize > marks.length) marks = new Uint8Array(boxSize);
-    else marks.fill(0, 0, boxSize);
-    for (let r = firstRun[c]; r < firstRun[c + 1]; r++) {
-      const run = order[r];
-      const at = (ry[run] - yLo) * width - xLo;
-      marks.fill(1, at + rx0[run], at + rx1[run]);
-    }
-    let n = 0;
-    for (let i = 0; i < boxSize; i++) n += marks[i];
-    const columns = new Int32Array(n);
-    let area = 0;
-    for (let y = yLo, i = 0, k = 0; y <= yHi; y++)
-      for (let x = xLo; x < xHi; x++, i++)
-        if (marks[i] === 1) {
-          const col = y * nx + x;
-          columns[k++] = col;
-          area += areaKm2[col];
-        }
-    areas.push(area);
-    footprints.push(columns);
-  }
+  const { footprints, areas } = footprintsOf(runs, kept, nx, ny, areaKm2);
 
   // Column quantities (echo top, VIL, rain at the lowest level) depend on the column alone: work
   // them out once for every column under a kept cell, level by level so reads run along rows.
@@ -282,11 +346,7 @@ export function identifyCells(
     }
   let topLevel = new Int32Array(nCols).fill(-1);
   let vil = new Float64Array(nCols);
-  const rain = new Float64Array(nCols).fill(Number.NaN);
-  for (let k = 0; k < nCols; k++) {
-    const lowest = data[allColumns[k]];
-    if (Number.isFinite(lowest) && lowest !== nodata) rain[k] = rainRate(lowest, s.zr);
-  }
+  const rain = rainAt(data, allColumns, nodata, s.zr);
   const fromKernel = is3d
     ? kernel?.columnQuantities(
         data,
@@ -322,33 +382,14 @@ export function identifyCells(
     if (kept[c] === 0) continue;
     const columns = footprints[f];
     const area = areas[f++];
-    const n = columns.length;
-    let rainMax = 0;
-    let flux = 0;
-    let echoTopLevel = -1;
-    let vilMax = 0;
-    let vilMass = 0;
-    const xs = new Float64Array(n);
-    const ys = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      const col = columns[i];
-      const k = colIndex[col];
-      xs[i] = xKm[col];
-      ys[i] = yKm[col];
-      const r = rain[k];
-      if (!Number.isNaN(r)) {
-        if (r > rainMax) rainMax = r;
-        flux += (r / 3.6e6) * areaKm2[col] * 1e6;
-      }
-    }
-    if (is3d) {
-      for (let i = 0; i < n; i++) {
-        const k = colIndex[columns[i]];
-        if (topLevel[k] > echoTopLevel) echoTopLevel = topLevel[k];
-        if (vil[k] > vilMax) vilMax = vil[k];
-        vilMass += vil[k] * areaKm2[columns[i]] * 1e6;
-      }
-    }
+    const { rainMax, flux, echoTopLevel, vilMax, vilMass, xs, ys } = footprintStats(
+      columns,
+      colIndex,
+      rain,
+      is3d ? topLevel : null,
+      vil,
+      grid,
+    );
     const ellipse = equivalentEllipse(xs, ys);
     const cx = wx[c] / wz[c];
     const cy = wy[c] / wz[c];
