@@ -30,7 +30,7 @@ export function pow10(y: number): number {
 const G_LIMIT_DB = 64;
 const G_STEPS_PER_DB = 128;
 const G = new Float64Array(2 * G_LIMIT_DB * G_STEPS_PER_DB + 1);
-const exactMeanLogOffset = (d: number) => Math.log10((1 + 10 ** (d / 10)) / 2);
+export const exactMeanLogOffset = (d: number): number => Math.log10((1 + 10 ** (d / 10)) / 2);
 for (let i = 0; i < G.length; i++) G[i] = exactMeanLogOffset(-G_LIMIT_DB + i / G_STEPS_PER_DB);
 
 /** log10 of the mean of 10^(a/10) and 10^(b/10), minus a/10, for d = b − a. */
@@ -41,4 +41,16 @@ export function meanLogOffset(d: number): number {
   const f = t - i;
   const lo = G[i];
   return lo + f * (G[i + 1] - lo);
+}
+
+/**
+ * The three tables one after another (10^f, then 10^n for n = −30…30, then g), for the WebAssembly
+ * kernel, which reads the very same values (cell-kernel.ts).
+ */
+export function fastMathTables(): Float64Array {
+  const all = new Float64Array(POW10_FRACTION.length + POW10_INTEGER.length + G.length);
+  all.set(POW10_FRACTION, 0);
+  all.set(POW10_INTEGER, POW10_FRACTION.length);
+  all.set(G, POW10_FRACTION.length + POW10_INTEGER.length);
+  return all;
 }

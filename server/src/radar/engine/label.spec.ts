@@ -64,7 +64,11 @@ const python = pythonWithScipy();
 if (!python)
   console.warn('label.spec: no python3 with scipy found; the scipy comparison is skipped (CI installs it)');
 
-describe.skipIf(!python)('labelGrid against scipy.ndimage.label', () => {
+// Both paths: the WebAssembly kernel (where built, as npm ci does) and the plain-JS reference.
+describe.skipIf(!python).each([
+  ['WebAssembly kernel', true],
+  ['plain JS', false],
+])('labelGrid (%s) against scipy.ndimage.label', (_, useWasm) => {
   it.each([
     [26, [3, 5, 20, 24]],
     [18, [4, 6, 18, 22]],
@@ -75,7 +79,7 @@ describe.skipIf(!python)('labelGrid against scipy.ndimage.label', () => {
     'finds the same regions with connectivity %d',
     (connectivity, [seed, nz, ny, nx]) => {
       const data = testVolume(nx, ny, nz, seed);
-      const ours = labelGrid(data, { nx, ny, nz }, 35, connectivity, -999);
+      const ours = labelGrid(data, { nx, ny, nz }, 35, connectivity, -999, { useWasm });
       const theirs = runPython<ScipyResult>(python as string, SCIPY_LABEL, {
         data: Array.from(data, (x) => (Number.isNaN(x) ? -1 : x)),
         shape: nz > 1 ? [nz, ny, nx] : [ny, nx],

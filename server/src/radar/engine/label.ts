@@ -1,3 +1,5 @@
+import { cellKernel } from './cell-kernel.js';
+
 /**
  * Connected-component labelling of a thresholded grid, working on runs (horizontal stretches of
  * voxels at or above the threshold) instead of voxels: one pass reads the floats and finds runs, a
@@ -67,7 +69,7 @@ function union(parent: Int32Array, a: number, b: number): void {
 }
 
 /** Which neighbouring rows a row touches, and whether diagonal (x ± 1) contact counts there. */
-function neighbourRows(
+export function neighbourRows(
   connectivity: Connectivity,
   is3d: boolean,
 ): { dz: number; dy: number; diagonal: boolean }[] {
@@ -101,9 +103,15 @@ function neighbourRows(
   }
 }
 
+export interface LabelOptions {
+  /** false: the plain-JS path even where the WebAssembly kernel is available (the kernel's reference). */
+  useWasm?: boolean;
+}
+
 /**
  * Labels voxels with value ≥ threshold. NaN never passes; nor does `nodata` when given (it is compared
  * exactly, as GeoTIFF nodata values are). Data are laid out as index = (z·ny + y)·nx + x.
+ * Float32 data go through the WebAssembly kernel when it is available (cell-kernel.ts), with the same result.
  */
 export function labelGrid(
   data: ArrayLike<number>,
@@ -111,6 +119,7 @@ export function labelGrid(
   threshold: number,
   connectivity: Connectivity,
   nodata?: number,
+  options: LabelOptions = {},
 ): Labelling {
   const { nx, ny, nz } = shape;
   if (data.length !== nx * ny * nz) {
@@ -119,6 +128,11 @@ export function labelGrid(
     );
   }
   const rows = neighbourRows(connectivity, nz > 1);
+  const kernel = options.useWasm === false ? null : cellKernel();
+  // The kernel says null when its memory cannot hold the volume: then the JS path below.
+  const viaKernel =
+    kernel && data instanceof Float32Array ? kernel.label(data, shape, threshold, rows, nodata) : null;
+  if (viaKernel) return { shape, ...viaKernel };
   const rz = new GrowableInt32();
   const ry = new GrowableInt32();
   const rx0 = new GrowableInt32();
