@@ -9,6 +9,7 @@ import { join } from 'node:path';
 import { PGlite } from '@electric-sql/pglite';
 import { Test } from '@nestjs/testing';
 import { sitePlane } from '../src/radar/engine/site-plane.js';
+import { mulberry32 } from '../src/testing/seeded-random.js';
 import { testConfig } from '../src/testing/test-app.js';
 
 // The app runs from the compiled server (tsc emits the decorator metadata Nest's injection needs;
@@ -34,18 +35,7 @@ const GRID_X = 25;
 const GRID_Y = 20;
 const SIDE_KM = 12;
 
-/** A small seeded generator (mulberry32), so every run benchmarks the same data. */
-function random(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-export const rand = random(2031);
+export const rand = mulberry32(2031);
 export const gauss = () => Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());
 export const ms = (t: number) => `${t.toFixed(1)} ms`;
 export const percentile = (xs: number[], p: number) =>

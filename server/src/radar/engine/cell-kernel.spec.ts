@@ -1,5 +1,6 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { mulberry32 } from '../../testing/seeded-random.js';
 import {
   CellKernel,
   cellKernel,
@@ -12,18 +13,6 @@ import { DEFAULT_IDENTIFY, type IdentifiedCell, identifyCells } from './identify
 import { type Connectivity, labelGrid, neighbourRows } from './label.js';
 
 // The kernel is the fast path and the plain-JS code its reference: every check here compares the two.
-
-/** mulberry32, a well-known 32-bit PRNG, for seeded test volumes. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const SPECIAL = [Number.NaN, -Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, -0, 0, -999];
 // +∞ passes any threshold and makes a cell's centroid and VIL non-finite (in both paths): most

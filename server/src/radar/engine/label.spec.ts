@@ -2,18 +2,6 @@ import { describe, expect, it } from 'vitest';
 import { pythonWithScipy, runPython } from '../../testing/scipy.js';
 import { type Connectivity, componentExtents, labelGrid } from './label.js';
 
-/** A small seeded generator (mulberry32, a well-known 32-bit PRNG) for test volumes. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 /** Blobs plus speckle, in dBZ, with some NaN and nodata voxels. */
 function testVolume(nx: number, ny: number, nz: number, seed: number): Float32Array {
   const rand = mulberry32(seed);
@@ -56,6 +44,8 @@ for i, sl in enumerate(ndimage.find_objects(labels)):
     out.append({'voxels': int(counts[i]), 'lo': lo, 'hi': hi})
 print(json.dumps({'n': int(n), 'components': out}))
 `;
+
+import { mulberry32 } from '../../testing/seeded-random.js';
 
 type ScipyResult = { n: number; components: { voxels: number; lo: number[]; hi: number[] }[] };
 
