@@ -1,6 +1,7 @@
-import { Select, SelectItem, TextInput } from '@carbon/react';
+import { Select, SelectItem } from '@carbon/react';
 import { ATLAS_BIN_HOURS, ATLAS_CELL_TYPES, ATLAS_SOURCES, type SiteView } from '@stormhour/shared';
 import { useDistricts } from '../../../api/districts';
+import { SitePeriodFields } from '../../../components/SitePeriodFields';
 import { useRegimes } from '../../regimes/api';
 import type { AtlasParams } from '../api';
 import { binLabel } from '../atlasParams';
@@ -34,32 +35,14 @@ export function AtlasFilters({
   const regimeChoices = regimes.data?.counts ?? [];
   return (
     <div className="track-filters atlas-filters">
-      <Select
+      <SitePeriodFields
+        idPrefix="atlas"
         size="sm"
-        id="atlas-site"
-        labelText="Radar site"
-        value={String(params.siteId)}
-        onChange={(e) => onChange({ site: e.target.value })}
-      >
-        {sites.map((s) => (
-          <SelectItem key={s.id} value={String(s.id)} text={`${s.code} — ${s.name}`} />
-        ))}
-      </Select>
-      <TextInput
-        size="sm"
-        id="atlas-from"
-        type="date"
-        labelText="First day (local)"
-        value={params.from ?? ''}
-        onChange={(e) => onChange({ from: e.target.value })}
-      />
-      <TextInput
-        size="sm"
-        id="atlas-to"
-        type="date"
-        labelText="Last day (local)"
-        value={params.to ?? ''}
-        onChange={(e) => onChange({ to: e.target.value })}
+        sites={sites}
+        siteId={params.siteId}
+        from={params.from}
+        to={params.to}
+        onChange={onChange}
       />
       <Select
         size="sm"

@@ -12,6 +12,7 @@ import { useState } from 'react';
 import { useSearchParams } from 'react-router';
 import { useBlocksGeojson } from '../../../api/blocks';
 import { LoadError } from '../../../components/LoadError';
+import { SitePeriodFields } from '../../../components/SitePeriodFields';
 import { useSites } from '../../intake/sites/api';
 import { fetchOutlookCsv, type OutlookParams, useExpectedWeekRegime, useOutlook } from '../api';
 import { BlockFigures } from './BlockFigures';
@@ -40,16 +41,14 @@ function Controls({
   const get = (key: string, fallback: string) => search.get(key) || fallback;
   return (
     <div className="track-filters outlook-controls">
-      <Select
-        id="outlook-site"
-        labelText="Radar site"
-        value={get('site', String(sites[0]?.id ?? ''))}
-        onChange={(e) => onChange({ site: e.target.value })}
-      >
-        {sites.map((s) => (
-          <SelectItem key={s.id} value={String(s.id)} text={`${s.code} — ${s.name}`} />
-        ))}
-      </Select>
+      <SitePeriodFields
+        idPrefix="outlook"
+        sites={sites}
+        siteId={get('site', String(sites[0]?.id ?? ''))}
+        from={search.get('from')}
+        to={search.get('to')}
+        onChange={onChange}
+      />
       <Select
         id="outlook-regime"
         labelText="Regime"
@@ -62,20 +61,6 @@ function Controls({
         ))}
         <SelectItem value={EXPECTED} text="Expected for a coming week…" />
       </Select>
-      <TextInput
-        id="outlook-from"
-        type="date"
-        labelText="First day (local)"
-        value={search.get('from') ?? ''}
-        onChange={(e) => onChange({ from: e.target.value })}
-      />
-      <TextInput
-        id="outlook-to"
-        type="date"
-        labelText="Last day (local)"
-        value={search.get('to') ?? ''}
-        onChange={(e) => onChange({ to: e.target.value })}
-      />
       <Select
         id="outlook-bins"
         labelText="Bin width"

@@ -1,8 +1,9 @@
-import { Button, InlineLoading, InlineNotification, Select, SelectItem, TextInput } from '@carbon/react';
+import { Button, InlineLoading, InlineNotification } from '@carbon/react';
 import type { RegimesResponse, SiteView } from '@stormhour/shared';
 import { useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router';
 import { LoadError } from '../../../components/LoadError';
+import { SitePeriodFields, type SitePeriodPatch } from '../../../components/SitePeriodFields';
 import { useSessionUser } from '../../../lib/auth';
 import { useSites } from '../../intake/sites/api';
 import { type RegimesParams, useRegimes } from '../api';
@@ -22,33 +23,17 @@ function PeriodControls({
 }: {
   sites: SiteView[];
   params: RegimesParams;
-  onChange: (patch: Partial<Record<'site' | 'from' | 'to', string>>) => void;
+  onChange: (patch: SitePeriodPatch) => void;
 }) {
   return (
     <div className="track-filters">
-      <Select
-        id="regimes-site"
-        labelText="Radar site"
-        value={String(params.siteId)}
-        onChange={(e) => onChange({ site: e.target.value })}
-      >
-        {sites.map((s) => (
-          <SelectItem key={s.id} value={String(s.id)} text={`${s.code} — ${s.name}`} />
-        ))}
-      </Select>
-      <TextInput
-        id="regimes-from"
-        type="date"
-        labelText="First day (site’s local date)"
-        value={params.from ?? ''}
-        onChange={(e) => onChange({ from: e.target.value })}
-      />
-      <TextInput
-        id="regimes-to"
-        type="date"
-        labelText="Last day (site’s local date)"
-        value={params.to ?? ''}
-        onChange={(e) => onChange({ to: e.target.value })}
+      <SitePeriodFields
+        idPrefix="regimes"
+        sites={sites}
+        siteId={params.siteId}
+        from={params.from}
+        to={params.to}
+        onChange={onChange}
       />
     </div>
   );
