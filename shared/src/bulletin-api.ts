@@ -273,6 +273,13 @@ export interface BulletinTextDiff {
   removed: number;
 }
 
+/** GET /api/bulletins/:id/compare?from&to: two saved versions of one bulletin. */
+export const CompareVersionsQuery = z.object({
+  from: z.coerce.number().int().min(1),
+  to: z.coerce.number().int().min(1),
+});
+export type CompareVersionsQuery = z.infer<typeof CompareVersionsQuery>;
+
 /** GET /api/bulletins/:id/diff: the plain text against the district's previous sent bulletin and version. */
 export interface BulletinDiffView {
   version: number;

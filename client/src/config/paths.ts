@@ -108,6 +108,7 @@ export const api = {
   bulletinAction: (id: number, action: BulletinAction) => `/api/bulletins/${id}/${action}`,
   bulletinVersion: (id: number, version: number) => `/api/bulletins/${id}/versions/${version}`,
   bulletinDiff: (id: number) => `/api/bulletins/${id}/diff`,
+  bulletinCompare: (id: number) => `/api/bulletins/${id}/compare`,
   bulletinReports: (id: number) => `/api/bulletins/${id}/reports`,
   bulletinDelivery: (id: number) => `/api/bulletins/${id}/delivery`,
   bulletinExport: (id: number, format: BulletinExportFormat) =>

@@ -2,6 +2,7 @@ import { Body, Controller, Get, Param, ParseIntPipe, Post, Put, Query, Res } fro
 import { ApiBearerAuth, ApiBody, ApiTags } from '@nestjs/swagger';
 import {
   BulletinListQuery,
+  CompareVersionsQuery,
   CreateBulletinRequest,
   ReturnBulletinRequest,
   SaveBulletinRequest,
@@ -23,6 +24,7 @@ type ListParams = z.infer<typeof BulletinListQuery>;
 type CreateBody = z.infer<typeof CreateBulletinRequest>;
 type SaveBody = z.infer<typeof SaveBulletinRequest>;
 type TransitionBody = z.infer<typeof TransitionRequest>;
+type CompareQuery = z.infer<typeof CompareVersionsQuery>;
 
 const STAFF = ['writer', 'scientist', 'admin'] as const;
 
@@ -76,6 +78,13 @@ export class BulletinsController {
   @Roles(...STAFF)
   diff(@Param('id', ParseIntPipe) id: number) {
     return this.bulletins.diff(id);
+  }
+
+  /** Two saved versions of the bulletin: what changed from version `from` to version `to`. */
+  @Get(':id/compare')
+  @Roles(...STAFF)
+  compare(@Param('id', ParseIntPipe) id: number, @Query(zodQuery(CompareVersionsQuery)) q: CompareQuery) {
+    return this.bulletins.compare(id, q.from, q.to);
   }
 
   @Post(':id/submit')

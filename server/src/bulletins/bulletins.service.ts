@@ -388,6 +388,22 @@ export class BulletinsService {
     return { version, previousSent, previousVersion };
   }
 
+  /** Any two saved versions of one bulletin, compared on the plain text officers receive. */
+  async compare(id: number, from: number, to: number): Promise<BulletinTextDiff> {
+    const b = await this.found(id);
+    const [older, newer] = await Promise.all([this.repo.version(id, from), this.repo.version(id, to)]);
+    const missing = [older ? null : from, newer ? null : to].filter((n) => n !== null);
+    if (missing.length > 0)
+      throw new NotFoundException({
+        message: `Bulletin ${b.number} has no version ${missing.join(' or ')}: it has versions 1 to ${b.currentVersion}.`,
+        details: missing.map((n) => ({ where: n === from ? 'from' : 'to', problem: `no version ${n}` })),
+      });
+    return {
+      against: { bulletinId: id, number: b.number, version: from },
+      ...textDiff(this.renderer.text(older.content), this.renderer.text(newer.content)),
+    };
+  }
+
   // ── Editing ───────────────────────────────────────────────────────────────────────────────────
 
   async save(actor: Actor, id: number, req: SaveBulletinRequest): Promise<BulletinView> {

@@ -219,6 +219,22 @@ describe('bulletins: drafting, review, sending and the inbox', () => {
     expect(diff.body.previousVersion.lines).toEqual(
       expect.arrayContaining([{ op: 'added', text: 'Edited by a colleague.' }]),
     );
+    // Any two saved versions: the first against the newest holds the colleague's line too, and a version
+    // against itself changes nothing.
+    const compare = (from: number, to: number) =>
+      t.http.get(`/api/bulletins/${bulletin.id}/compare`).query({ from, to }).set(writer);
+    const oneToThree = (await compare(1, 3).expect(200)).body;
+    expect(oneToThree.against).toEqual({ bulletinId: bulletin.id, number: 'RVB-2025-40', version: 1 });
+    expect(oneToThree.lines).toEqual(
+      expect.arrayContaining([{ op: 'added', text: 'Edited by a colleague.' }]),
+    );
+    const same = (await compare(2, 2).expect(200)).body;
+    expect([same.added, same.removed]).toEqual([0, 0]);
+    expect(same.lines.length).toBeGreaterThan(0);
+    const missing = (await compare(1, 9).expect(404)).body;
+    expect(missing.message).toBe('Bulletin RVB-2025-40 has no version 9: it has versions 1 to 3.');
+    expect(missing.details).toEqual([{ where: 'to', problem: 'no version 9' }]);
+    expect((await compare(0, 2).expect(400)).body.details[0]).toMatchObject({ where: 'from' });
   });
 
   it('refuses to send a bulletin that is not approved, and to let its author approve it', async () => {

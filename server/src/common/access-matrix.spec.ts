@@ -73,6 +73,7 @@ const EXPECTED: Record<string, 'public' | readonly Role[]> = {
   'PUT /api/bulletins/:id': ['writer', 'scientist', 'admin'],
   'GET /api/bulletins/:id/versions/:n': ['writer', 'scientist', 'admin'],
   'GET /api/bulletins/:id/diff': ['writer', 'scientist', 'admin'],
+  'GET /api/bulletins/:id/compare': ['writer', 'scientist', 'admin'],
   'POST /api/bulletins/:id/submit': ['writer', 'scientist', 'admin'],
   'POST /api/bulletins/:id/approve': ['scientist', 'admin'],
   'POST /api/bulletins/:id/return': ['scientist', 'admin'],

@@ -3,6 +3,7 @@ import type {
   BulletinDiffView,
   BulletinListQuery,
   BulletinSummaryView,
+  BulletinTextDiff,
   BulletinVersionView,
   BulletinView,
   CreateBulletinRequest,
@@ -20,6 +21,7 @@ export const bulletinKeys = {
   bulletin: (id: number) => ['bulletins', id] as const,
   version: (id: number, version: number) => ['bulletins', id, 'version', version] as const,
   diff: (id: number, version: number) => ['bulletins', id, 'diff', version] as const,
+  compare: (id: number, from: number, to: number) => ['bulletins', id, 'compare', from, to] as const,
   reports: (id: number) => ['bulletins', id, 'reports'] as const,
   delivery: (id: number) => ['bulletins', id, 'delivery'] as const,
 };
@@ -69,6 +71,26 @@ export function getBulletinDiffQueryOptions(id: number, version: number) {
 }
 export function useBulletinDiff(id: number, version: number) {
   return useQuery(getBulletinDiffQueryOptions(id, version));
+}
+
+/** Two saved versions of one bulletin: what changed from version `from` to version `to`. */
+export function fetchBulletinCompare(id: number, from: number, to: number): Promise<BulletinTextDiff> {
+  return request<BulletinTextDiff>(withQuery(api.bulletinCompare(id), { from, to }));
+}
+export function getBulletinCompareQueryOptions(id: number, from: number, to: number) {
+  // Saved versions never change, so neither does their comparison.
+  return queryOptions({
+    queryKey: bulletinKeys.compare(id, from, to),
+    queryFn: () => fetchBulletinCompare(id, from, to),
+    staleTime: Number.POSITIVE_INFINITY,
+  });
+}
+/** Null versions (none chosen yet) fetch nothing. */
+export function useBulletinCompare(id: number, from: number | null, to: number | null) {
+  return useQuery({
+    ...getBulletinCompareQueryOptions(id, from ?? 0, to ?? 0),
+    enabled: from !== null && to !== null,
+  });
 }
 
 /** The officers' field reports on a bulletin, for the unit's staff. */

@@ -260,3 +260,45 @@ describe('Bulletins › one bulletin', () => {
     expect(server.calls.some((c) => c.path.endsWith('/withdraw'))).toBe(false);
   }, 30_000);
 });
+
+describe('Bulletins › versions', () => {
+  it('compares any two saved versions the user picks, as the server compares them', async () => {
+    const bulletin = aBulletinView({
+      currentVersion: 3,
+      versions: [1, 2, 3].map((version) => ({
+        version,
+        savedBy: 'writer@vessary.example',
+        savedAt: `2025-06-2${version}T08:00:00.000Z`,
+      })),
+    });
+    const { server } = renderApp('/bulletins/5', {
+      as: writer,
+      api: routes(bulletin, {
+        'GET /api/bulletins/5/compare': (req) => ({
+          body: {
+            against: { bulletinId: 5, number: bulletin.number, version: Number(req.query.get('from')) },
+            lines: [
+              { op: 'removed', text: 'Storms possible.' },
+              { op: 'added', text: 'Storms likely in the hills.' },
+            ],
+            added: 1,
+            removed: 1,
+          },
+        }),
+      }),
+    });
+    await userEvent.click(
+      await screen.findByRole('tab', { name: 'Versions and changes' }, { timeout: 5000 }),
+    );
+    const section = screen.getByRole('region', { name: 'Compare two versions' });
+    await userEvent.selectOptions(within(section).getByLabelText('From version'), '1');
+    // Nothing is asked until both ends are chosen.
+    expect(server.calls.some((c) => c.path === '/api/bulletins/5/compare')).toBe(false);
+    await userEvent.selectOptions(within(section).getByLabelText('To version'), '3');
+    const changes = await within(section).findByRole('list', { name: 'Changes from version 1 to version 3' });
+    expect(within(changes).getByText('Storms likely in the hills.')).toBeTruthy();
+    expect(within(section).getByText('1 line added, 1 removed.')).toBeTruthy();
+    const asked = server.calls.filter((c) => c.path === '/api/bulletins/5/compare');
+    expect(asked.map((c) => [c.query.get('from'), c.query.get('to')])).toEqual([['1', '3']]);
+  });
+});

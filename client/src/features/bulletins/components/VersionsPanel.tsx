@@ -5,12 +5,12 @@ import { BulletinView as BulletinDocument } from '../../../components/bulletin/B
 import { VersionDiff } from '../../../components/bulletin/VersionDiff';
 import { LoadError } from '../../../components/LoadError';
 import { formatDateTime } from '../../../lib/format';
-import { useBulletinDiff, useBulletinVersion } from '../api';
+import { useBulletinCompare, useBulletinDiff, useBulletinVersion } from '../api';
 
 /**
  * What changed: the shown version (the approved one once approved) against the version before it and
  * against the district's last sent bulletin, compared by the server on the plain text officers receive;
- * and any saved version to read in full.
+ * any two saved versions side by side; and any saved version to read in full.
  */
 export function VersionsPanel({ bulletin }: { bulletin: BulletinView }) {
   const shownVersion = bulletin.approvedVersion ?? bulletin.currentVersion;
@@ -19,6 +19,21 @@ export function VersionsPanel({ bulletin }: { bulletin: BulletinView }) {
   const [reading, setReading] = useState<number | null>(null);
   const version = useBulletinVersion(bulletin.id, reading);
   const newestFirst = [...bulletin.versions].sort((a, b) => b.version - a.version);
+  const [pair, setPair] = useState<{ from: number | null; to: number | null }>({ from: null, to: null });
+  const compared = useBulletinCompare(bulletin.id, pair.from, pair.to);
+  const versionChoices = (id: string, label: string, key: 'from' | 'to') => (
+    <Select
+      id={id}
+      labelText={label}
+      value={pair[key] === null ? '' : String(pair[key])}
+      onChange={(e) => setPair({ ...pair, [key]: e.target.value ? Number(e.target.value) : null })}
+    >
+      <SelectItem value="" text="Choose a version" />
+      {newestFirst.map((v) => (
+        <SelectItem key={v.version} value={String(v.version)} text={`Version ${v.version}`} />
+      ))}
+    </Select>
+  );
 
   return (
     <div className="form-stack">
@@ -66,6 +81,24 @@ export function VersionsPanel({ bulletin }: { bulletin: BulletinView }) {
       ) : diff.isLoading ? (
         <p>Loading…</p>
       ) : null}
+
+      <section aria-label="Compare two versions" className="form-stack">
+        <h3 className="bulletin-view__heading">Compare two versions</h3>
+        <div className="track-filters">
+          {versionChoices('bulletin-compare-from', 'From version', 'from')}
+          {versionChoices('bulletin-compare-to', 'To version', 'to')}
+        </div>
+        {compared.isError ? (
+          <LoadError what="the comparison" error={compared.error} onRetry={() => compared.refetch()} />
+        ) : null}
+        {compared.data ? (
+          <VersionDiff
+            diff={compared.data}
+            label={`Changes from version ${pair.from} to version ${pair.to}`}
+            showSame={showSame}
+          />
+        ) : null}
+      </section>
 
       <Select
         id="bulletin-version"
