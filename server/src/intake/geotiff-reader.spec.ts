@@ -2,6 +2,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { deflateSync } from 'node:zlib';
+import { encodeGeoTiff, gdalMetadataXml, geographicKeys } from '@stormhour/sample-data';
 import { fromArrayBuffer } from 'geotiff';
 import { describe, expect, it } from 'vitest';
 import { sitePlane } from '../radar/engine/site-plane.js';
@@ -71,6 +72,35 @@ describe('readReflectivityTiff', () => {
     ['an all-nodata band', fillBand(volume, 6, 15, 255), 'band 7', /every value is nodata/],
   ])('refuses %s, saying where', async (_what, content, where, problem) => {
     await expect(read(content)).rejects.toMatchObject({ where, message: expect.stringMatching(problem) });
+  });
+
+  it('refuses a band holding infinite values, saying which band and where the first is', async () => {
+    // A float32 column-maximum field around the demo radar (GeoTIFF 1.1 geographic keys), one band.
+    const nx = 20;
+    const ny = 16;
+    const values = new Float32Array(nx * ny).fill(20);
+    values[3 * nx + 7] = Number.POSITIVE_INFINITY;
+    values[9 * nx + 2] = Number.NEGATIVE_INFINITY;
+    const tiff = (data: Float32Array) =>
+      encodeGeoTiff({
+        width: nx,
+        height: ny,
+        bands: 1,
+        data,
+        pixelScale: [0.01, 0.01],
+        origin: [site.location.lon - 0.1, site.location.lat + 0.08],
+        geoKeys: geographicKeys(),
+        gdalMetadataXml: gdalMetadataXml([{ name: 'SCAN_TIME_UTC', value: '2025-08-01T09:00:00Z' }]),
+      });
+    const readField = (content: Buffer) => read(content, { kind: 'column-max', fileName: 'field.tif' });
+    await expect(readField(tiff(values))).rejects.toMatchObject({
+      where: 'band 1',
+      message: expect.stringMatching(/holds 2 infinite values \(the first at column 8, row 4\)/),
+    });
+    // The same field with those two values finite is read.
+    values[3 * nx + 7] = 40;
+    values[9 * nx + 2] = 0;
+    expect((await readField(tiff(values))).grid.data[3 * nx + 7]).toBe(40);
   });
 
   it('refuses a volume given as a column-maximum field, and a scan time in the future', async () => {

@@ -181,8 +181,21 @@ export async function readReflectivityTiff(content: Buffer, opts: ReadOptions): 
   const plane = nx * ny;
   for (let b = 0; b < bands; b++) {
     let valid = false;
-    for (let i = b * plane; i < (b + 1) * plane && !valid; i++) valid = !Number.isNaN(data[i]);
+    let infinite = 0;
+    let firstInfinite = -1;
+    for (let i = b * plane; i < (b + 1) * plane; i++) {
+      const v = data[i];
+      if (v === Number.POSITIVE_INFINITY || v === Number.NEGATIVE_INFINITY) {
+        if (infinite++ === 0) firstInfinite = i - b * plane;
+      } else if (!Number.isNaN(v)) valid = true;
+    }
     if (!valid) throw new FileProblem(`band ${b + 1}`, 'has no data: every value is nodata');
+    // An infinite value is no reflectivity: a damaged file, or missing values not marked as nodata.
+    if (infinite > 0)
+      throw new FileProblem(
+        `band ${b + 1}`,
+        `holds ${infinite} infinite ${infinite === 1 ? 'value' : 'values'} (the first at column ${(firstInfinite % nx) + 1}, row ${Math.floor(firstInfinite / nx) + 1}): reflectivity must be finite; mark missing values with the file's nodata value`,
+      );
   }
 
   const toSite = sameAsPlane(crs, opts.plane) ? null : proj4(crs, 'EPSG:4326');
