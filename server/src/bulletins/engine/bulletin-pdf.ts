@@ -1,6 +1,7 @@
 import { createRequire } from 'node:module';
 import type { BulletinContent } from '@stormhour/shared';
 import PDFDocument from 'pdfkit';
+import { pdfTable } from '../../common/pdf-table.js';
 import { bulletinTitle, hourLabel, percent } from './bulletin-text.js';
 import { type RichBlock, richTextBlocks, type TextRun } from './rich-text.js';
 
@@ -45,8 +46,9 @@ export function bulletinPdf(c: BulletinContent): Promise<Buffer> {
     doc,
     `Chance of an afternoon storm (${hourLabel(c.afternoonFromHour)}–${hourLabel(c.afternoonToHour)} local)`,
   );
-  table(
+  pdfTable(
     doc,
+    MARGIN,
     ['Block', 'Chance', '90 % interval', 'n', 'Peak', 'In words'],
     [110, 50, 80, 35, 40, 180],
     c.outlook.map((b) => [
@@ -99,25 +101,4 @@ function richText(doc: PDFKit.PDFDocument, blocks: RichBlock[]) {
     doc.moveDown(0.4);
   }
   doc.x = MARGIN;
-}
-
-function table(doc: PDFKit.PDFDocument, header: string[], widths: number[], rows: string[][]) {
-  const draw = (cells: string[], font: string) => {
-    const top = doc.y;
-    let x = MARGIN;
-    let bottom = top;
-    cells.forEach((text, i) => {
-      doc
-        .font(font)
-        .fontSize(9)
-        .text(text, x, top, { width: widths[i] - 6 });
-      bottom = Math.max(bottom, doc.y);
-      x += widths[i];
-    });
-    doc.x = MARGIN;
-    doc.y = bottom + 3;
-    if (doc.y > doc.page.height - MARGIN - 30) doc.addPage();
-  };
-  draw(header, 'bold');
-  for (const row of rows) draw(row, 'regular');
 }

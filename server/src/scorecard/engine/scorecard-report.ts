@@ -2,6 +2,7 @@ import type { ScorecardPair, ScorecardView, ScoreInterval } from '@stormhour/sha
 import Papa from 'papaparse';
 import PDFDocument from 'pdfkit';
 import { FONTS } from '../../bulletins/engine/bulletin-pdf.js';
+import { pdfTable } from '../../common/pdf-table.js';
 
 /** The pairs as CSV, one row per bulletin, block and day: what every score is computed from. */
 export function scorecardCsv(pairs: readonly ScorecardPair[]): string {
@@ -77,8 +78,9 @@ export function scorecardPdf(v: ScorecardView, unitName: string): Promise<Buffer
 
   heading('Reliability');
   reliabilityDiagram(doc, v);
-  table(
+  pdfTable(
     doc,
+    MARGIN,
     ['Issued chance', 'Cases', 'Mean chance', 'Observed', '90 % interval'],
     [100, 60, 80, 80, 120],
     v.reliability.map((r) => [
@@ -91,8 +93,9 @@ export function scorecardPdf(v: ScorecardView, unitName: string): Promise<Buffer
   );
 
   heading('At the advice thresholds');
-  table(
+  pdfTable(
     doc,
+    MARGIN,
     ['Yes from', 'Hits', 'Misses', 'False alarms', 'Hit rate', 'False-alarm ratio'],
     [70, 50, 50, 80, 70, 100],
     v.thresholds.map((t) => [
@@ -111,8 +114,9 @@ export function scorecardPdf(v: ScorecardView, unitName: string): Promise<Buffer
   );
 
   heading('Blocks, worst first');
-  table(
+  pdfTable(
     doc,
+    MARGIN,
     ['Block', 'Days', 'Storms', 'Brier', 'Skill', 'Bulletins'],
     [110, 40, 45, 50, 50, 200],
     v.blocks
@@ -159,25 +163,4 @@ function reliabilityDiagram(doc: PDFKit.PDFDocument, v: ScorecardView) {
   doc.text('observed', MARGIN - 10, top + size / 2, { width: 40 });
   doc.x = MARGIN;
   doc.y = top + size + 20;
-}
-
-function table(doc: PDFKit.PDFDocument, header: string[], widths: number[], rows: string[][]) {
-  const draw = (cells: string[], font: string) => {
-    if (doc.y > doc.page.height - MARGIN - 30) doc.addPage();
-    const top = doc.y;
-    let x = MARGIN;
-    let bottom = top;
-    cells.forEach((text, i) => {
-      doc
-        .font(font)
-        .fontSize(9)
-        .text(text, x, top, { width: widths[i] - 6 });
-      bottom = Math.max(bottom, doc.y);
-      x += widths[i];
-    });
-    doc.x = MARGIN;
-    doc.y = bottom + 3;
-  };
-  draw(header, 'bold');
-  for (const row of rows) draw(row, 'regular');
 }
