@@ -1,13 +1,6 @@
 import { type Role, sectionsFor } from '@stormhour/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import {
-  type Browser,
-  baseUrl,
-  DEMO_PASSWORD,
-  openBrowser,
-  signIn,
-  watchOutsideRequests,
-} from './browser.js';
+import { apiToken, type Browser, baseUrl, openBrowser, signIn, watchOutsideRequests } from './browser.js';
 
 const SECTION_NAMES: Record<string, string> = {
   atlas: 'Atlas',
@@ -26,16 +19,6 @@ const DEMO_ACCOUNTS: [string, Role][] = [
   ['writer@vessary.example', 'writer'],
   ['officer.riverbend@vessary.example', 'officer'],
 ];
-
-async function apiToken(email: string): Promise<string> {
-  const res = await fetch(`${baseUrl()}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
-  });
-  expect(res.status).toBe(200);
-  return ((await res.json()) as { accessToken: string }).accessToken;
-}
 
 describe('each demo role sees only its sections', () => {
   let browser: Browser;
